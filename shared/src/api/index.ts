@@ -1,0 +1,1 @@
+export type { HealthResponse } from './health.js';

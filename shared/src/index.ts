@@ -1,0 +1,2 @@
+// Public surface of @fieldbound/shared. Only re-exports live here.
+export * from './api/index.js';
