@@ -1,0 +1,27 @@
+import { ConsoleLogger, type INestApplication, ValidationPipe } from '@nestjs/common';
+import { NestFactory } from '@nestjs/core';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import helmet from 'helmet';
+import { AppModule } from './app.module';
+import { loadConfig, type AppConfig } from './config/configuration';
+
+export interface CreateAppOptions {
+  /** Structured JSON log lines (default) or none at all (tests). */
+  logs?: 'json' | 'silent';
+  /** Defaults to the environment's configuration. */
+  config?: AppConfig;
+}
+
+/** Builds the configured application without listening: shared by main.ts and the integration tests. */
+export async function createApp(options: CreateAppOptions = {}): Promise<INestApplication> {
+  const logger = options.logs === 'silent' ? false : new ConsoleLogger({ json: true, colors: false });
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(options.config ?? loadConfig()), { logger, bufferLogs: false, abortOnError: false });
+  app.setGlobalPrefix('api');
+  app.use(helmet());
+  app.set('trust proxy', 'loopback');
+  app.useGlobalPipes(
+    new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),
+  );
+  app.enableShutdownHooks();
+  return app;
+}
