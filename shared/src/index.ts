@@ -1,2 +1,3 @@
 // Public surface of @fieldbound/shared. Only re-exports live here.
 export * from './api/index.js';
+export * from './solver/index.js';
