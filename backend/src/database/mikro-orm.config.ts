@@ -22,7 +22,8 @@ export function ormOptions(db: AppConfig["database"]): Options {
       migrationsList: ALL_MIGRATIONS,
       path: path.join(__dirname, 'migrations'),
       pathTs: path.join(__dirname, '..', '..', 'src', 'database', 'migrations'),
-      snapshotName: '.snapshot',
+      // Migrations are written by hand (explicit SQL up and down), so no schema snapshot is kept.
+      snapshot: false,
       transactional: true,
       allOrNothing: true,
       emit: 'ts',
