@@ -14,7 +14,8 @@
  * so that for coupling λ and binding ε the step's α_j = [[0, R_j], [S_j, 0]]
  * with S_j = 2(λP_j + εR_j). Every mismatch evaluation then costs only
  * arithmetic. The mesh grows outward on demand (`ensure`), up to xMax.
- * Breakpoints (positions of discontinuities of w) become mesh nodes, which
+ * In the far tail, where (x')²·2λ|w| < 1e-2, the step may grow by up to 4×
+ * (see TAIL_G). Breakpoints (positions of discontinuities of w) become mesh nodes, which
  * keeps the sixth order for piecewise-smooth potentials.
  *
  * Internal to the solver; not exported from the package.
@@ -24,6 +25,13 @@ const SQ15 = Math.sqrt(15);
 const C1 = 0.5 - SQ15 / 10;
 const C3 = 0.5 + SQ15 / 10;
 const STRIDE = 8; // R1 R2 R3 P1 P2 P3 maxAbsW(start & Gauss nodes) h
+/**
+ * Far tail: where (x')²·2λ|w| < TAIL_G the potential is a small perturbation of
+ * the free motion, which the Magnus step integrates exactly for any step; the
+ * step may grow there as (TAIL_G/((x')²·2λ|w|))^(1/7), by at most TAIL_STRETCH.
+ */
+const TAIL_G = 1e-2;
+const TAIL_STRETCH = 4;
 
 export interface MeshSpec {
   /** w(x), even, → 0 at infinity; evaluated only for x ≥ 0. */
@@ -121,7 +129,10 @@ export class SinhMesh {
     const t0 = this.t[k];
     const w0 = this.wNode[k];
     const twoL = 2 * lambdaRef;
-    let h = Math.min(hMax, cOsc / (a * Math.cosh(t0) * Math.sqrt(twoL * Math.abs(w0)) + 1e-300));
+    const d0 = a * Math.cosh(t0);
+    const g0 = d0 * d0 * twoL * Math.abs(w0); // (x')²·2λ|w|: the potential's weight in a unit step
+    const stretch = g0 < TAIL_G ? Math.min(TAIL_STRETCH, Math.pow(TAIL_G / g0, 1 / 7)) : 1;
+    let h = Math.min(hMax * stretch, cOsc / (d0 * Math.sqrt(twoL * Math.abs(w0)) + 1e-300));
     // Land exactly on the next breakpoint if it falls inside this step.
     for (const tb of this.tBreak) {
       if (tb > t0 * (1 + 1e-14) + 1e-300 && tb < t0 + h) {

@@ -15,7 +15,7 @@ export interface BoundStateOptions {
   scale?: number;
   /**
    * Accuracy knob: target relative accuracy of ε. Sets the step parameters
-   * hMax = 0.07·(tol/2e-7)^(1/6), cOsc = 2·hMax (clamped to [0.004, 0.25]).
+   * hMax = 0.07·(tol/1e-8)^(1/6), cOsc = 2·hMax (hMax clamped to [0.004, 0.25]).
    * Default 1e-10. Measured accuracies are in docs/physics/solver.md.
    */
   tol?: number;
