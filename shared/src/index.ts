@@ -1,3 +1,4 @@
 // Public surface of @fieldbound/shared. Only re-exports live here.
 export * from './api/index.js';
 export * from './solver/index.js';
+export * from './setup/index.js';

@@ -1,0 +1,3 @@
+export * from './mapSetup.js';
+export * from './presets.js';
+export * from './fingerprint.js';
