@@ -2,3 +2,7 @@
 export * from './api/index.js';
 export * from './solver/index.js';
 export * from './setup/index.js';
+export * from './errors.js';
+export * from './units/index.js';
+export * from './special/index.js';
+export * from './potential/index.js';
