@@ -6,3 +6,4 @@ export * from './errors.js';
 export * from './units/index.js';
 export * from './special/index.js';
 export * from './potential/index.js';
+export * from './map/index.js';
