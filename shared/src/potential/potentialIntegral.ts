@@ -12,7 +12,7 @@ const PI_OVER_8_SQRT2 = Math.PI / (8 * Math.SQRT2);
  *
  * The first weak-coupling order of the scaled 1D problem is κ ≈ −λ·W1 (B. Simon,
  * Ann. Phys. 97, 279 (1976)). Limits: ρ_c → 0, m ≥ 1: −πΓ(m−½)/(8√2 m!)
- * (`scaledPotentialIntegralZeroCutoff`); m = 0: −π/(4ρ_c) + (π^(3/2)/4) e^s erfc(√s), s = ρ_c²/2,
+ * (`scaledPotentialIntegralZeroCutoff`); m = 0: −π/(4ρ_c) + (π^(3/2)/(4√2)) e^s erfc(√s), s = ρ_c²/2,
  * which diverges as ρ_c → 0 (returns −Infinity at ρ_c = 0).
  *
  * Domain: integer m ≥ 0, finite ρ_c ≥ 0; throws `DomainError` otherwise.
@@ -21,7 +21,7 @@ const PI_OVER_8_SQRT2 = Math.PI / (8 * Math.SQRT2);
  * Source: model.md §1; DLMF 13.4.4 (F. W. J. Olver et al., 2010–).
  *
  * @example
- * scaledPotentialIntegral(1, 0); // -0.4922437164...  (= −π·√π/(8√2))
+ * scaledPotentialIntegral(1, 0); // -0.4921753108038257  (= −π·√π/(8√2))
  */
 export function scaledPotentialIntegral(m: number, rhoC: number): number {
   checkM(m);
@@ -62,7 +62,7 @@ export function potentialIntegral(
  * Zero-cutoff limit of `scaledPotentialIntegral` for m ≥ 1: −π Γ(m − ½) / (8√2 m!).
  * Domain: integer m ≥ 1 (m = 0 diverges); throws `DomainError` otherwise.
  * Source: model.md §1; U(a, b, 0) = Γ(1−b)/Γ(a−b+1) for b < 1 (DLMF 13.2.16–13.2.18).
- * @example scaledPotentialIntegralZeroCutoff(1); // -0.49224371641...
+ * @example scaledPotentialIntegralZeroCutoff(1); // -0.4921753108038257
  */
 export function scaledPotentialIntegralZeroCutoff(m: number): number {
   checkM(m);
