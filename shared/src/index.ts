@@ -7,3 +7,4 @@ export * from './units/index.js';
 export * from './special/index.js';
 export * from './potential/index.js';
 export * from './map/index.js';
+export * from './levels/index.js';
