@@ -102,7 +102,7 @@ describe('scaledPotential w_m(ζ; ρ_c) = −U(2, 2−m, (ζ² + ρ_c²)/2)/8', 
 });
 
 describe('makeScaledPotential (fast path)', () => {
-  it('agrees with scaledPotential within 1e-15 relative on a sinh grid 1e-9 … 1e12 for m = 0…64', () => {
+  it('agrees with scaledPotential within 3e-14 relative on a sinh grid 1e-9 … 1e12 for m = 0…64', () => {
     for (const m of [0, 1, 2, 3, 8, 17, 40, 64]) {
       for (const rhoC of [0, 1e-3, 0.2, 1, 5]) {
         const w = makeScaledPotential(m, rhoC);
@@ -110,11 +110,23 @@ describe('makeScaledPotential (fast path)', () => {
           const zeta = 1e-3 * Math.sinh(t);
           const e = scaledPotential(m, zeta, rhoC);
           const a = w(zeta);
-          if (!(relDiff(a, e) <= 1e-15) && !(a === e)) {
-            throw new Error(`m=${m} rhoC=${rhoC} zeta=${zeta}: fast ${a} vs ${e} (rel ${relDiff(a, e)}, tol 1e-15)`);
+          if (!(relDiff(a, e) <= 3e-14) && !(a === e)) {
+            throw new Error(`m=${m} rhoC=${rhoC} zeta=${zeta}: fast ${a} vs ${e} (rel ${relDiff(a, e)}, tol 3e-14)`);
           }
         }
       }
+    }
+  });
+});
+
+describe('makeScaledPotential against mpmath', () => {
+  it('equals −U(2, 2−m, ζ²/2)/8 from mpmath hyperu within 2e-14 for 1e-30 ≤ ζ²/2 ≤ 1e30, m = 0…64 (ρ_c = 0)', () => {
+    const byM = new Map<number, (zeta: number) => number>();
+    for (const [m, x, v] of oracle.tricomiU2['rows [m, x, value]']) {
+      let w = byM.get(m);
+      if (!w) byM.set(m, (w = makeScaledPotential(m, 0)));
+      const zeta = Math.sqrt(2 * x); // b = ζ²/2 reproduces x to 1 ulp
+      expectClose(w(zeta), -Number(v) / 8, { rel: 2e-14, inputs: { m, zeta, b: x }, source: ORACLE_SOURCE });
     }
   });
 });
