@@ -19,7 +19,7 @@ function expnSeries(n: number, x: number): number {
   let sum = 0;
   let pow = 1; // (−x)^k / k!
   let logTerm = 0;
-  for (let k = 0; k < 400; k++) {
+  for (let k = 0; k < n + 400; k++) {
     if (k === n - 1) {
       logTerm = pow * (digammaInteger(n) - Math.log(x));
     } else {

@@ -33,7 +33,7 @@ function seriesU2(m: number, x: number): number {
   const lnx = Math.log(x);
   let pk = 1;
   let sum = 0;
-  for (let k = 0; k < 400; k++) {
+  for (let k = 0; k < m + 400; k++) {
     if (k === m - 1) sum += pk * (digammaInteger(m) - lnx - 1);
     else if (k === m) sum -= pk * (digammaInteger(m + 1) - lnx + 1);
     else {

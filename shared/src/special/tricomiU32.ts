@@ -4,6 +4,8 @@ import { gamma } from './gamma.js';
 
 const EPS = 1.1102230246251565e-16;
 const SQRT_PI = 1.7724538509055160273;
+/** Largest m accepted by `tricomiU32` (Γ(m − ½) must not overflow). */
+export const TRICOMI_U32_MAX_M = 150;
 /** Below this s the power series is used (m ≥ 1). */
 export const U32_SERIES_MAX_S = 0.05;
 /** Trapezoidal step in the scaled variable v (see `tricomiU32Trapezoid`). */
@@ -54,7 +56,7 @@ export function tricomiU32Asymptotic(m: number, s: number, maxTerms = 60): numbe
  *   trapezoidal rule (see `tricomiU32Trapezoid`; 50–300 exponentials).
  * - s = 0: Γ(m−½)/m! for m ≥ 1, +Infinity for m = 0.
  *
- * Domain: integer m ≥ 0, finite s ≥ 0; throws `DomainError` otherwise.
+ * Domain: integer 0 ≤ m ≤ 150, finite s ≥ 0; throws `DomainError` otherwise.
  * Accuracy: ≤ 1e-14 relative against mpmath 1.3.0 for m ≤ 64, 1e-30 ≤ s ≤ 1e30 (see tests).
  *
  * Sources: F. W. J. Olver et al., NIST Digital Library of Mathematical Functions, §13.2,
@@ -64,7 +66,9 @@ export function tricomiU32Asymptotic(m: number, s: number, maxTerms = 60): numbe
  * tricomiU32(1, 0); // 1.772453850905516  (= Γ(½)/1!)
  */
 export function tricomiU32(m: number, s: number): number {
-  if (!Number.isInteger(m) || m < 0) throw new DomainError('m', `tricomiU32: m must be an integer ≥ 0, got ${m}`);
+  if (!Number.isInteger(m) || m < 0 || m > TRICOMI_U32_MAX_M) {
+    throw new DomainError('m', `tricomiU32: m must be an integer in [0, ${TRICOMI_U32_MAX_M}], got ${m}`);
+  }
   if (!(s >= 0) || !Number.isFinite(s)) throw new DomainError('s', `tricomiU32: s must be finite and ≥ 0, got ${s}`);
   if (s === 0) return m >= 1 ? gamma(m - 0.5) / gamma(m + 1) : Infinity;
   if (s <= U32_SERIES_MAX_S) {
