@@ -1,6 +1,7 @@
 export * from './types.js';
 export * from './levels.js';
 export * from './solveOrbital.js';
+export * from './createOrbitalSolver.js';
 export * from './countStates.js';
 export * from './orbitalThresholds.js';
 export * from './orbitalWeakCoupling.js';

@@ -10,6 +10,7 @@ import { solveBoundStates } from '../solver/solveBoundStates.js';
 import type { AtomicField, AtomicPolarizability, Bohr } from '../units/brand.js';
 import { expectClose } from '../../test/expectClose.js';
 import { countStates } from './countStates.js';
+import { createOrbitalSolver } from './createOrbitalSolver.js';
 import { levels } from './levels.js';
 import { orbitalThresholds } from './orbitalThresholds.js';
 import { orbitalWeakCoupling, orbitalWeakCouplingCoefficients } from './orbitalWeakCoupling.js';
@@ -135,6 +136,21 @@ describe('solveOrbital against an independent Numerov shooting solver', () => {
       const e2 = numerovGround(v, L, 80000, lo, hi);
       const ref = e2 + (e2 - e1) / 15; // Numerov is fourth order
       expectClose(mine, ref, { rel: 1e-9, inputs: { m, lambda, rhoC, numerovH: L / 80000 }, source: 'Numerov shooting (test-side)' });
+    }
+  });
+});
+
+describe('createOrbitalSolver (one potential sampling per row of constant B)', () => {
+  it('a row α = 1…1000 at B = 1e-4, r_c = 2, m = 0, 2: ground states equal solveOrbital at tol 1e-12 to 1e-7 (tol 2e-7)', () => {
+    const B = 1e-4;
+    const rhoC = 2 * Math.sqrt(B);
+    for (const m of [0, 2]) {
+      const row = createOrbitalSolver(m, rhoC, { tol: 2e-7, lambdaMax: 1000 * B });
+      for (const alpha of [1, 10, 100, 1000]) {
+        const fast = row.solve(alpha * B, { nuMax: 0, errorEstimate: false }).levels[0].epsilon;
+        const ref = solveOrbital(m, alpha * B, rhoC, { nuMax: 0, tol: 1e-12 }).levels[0].epsilon;
+        expectClose(fast, ref, { rel: 1e-7, inputs: { m, alpha, B, rhoC } });
+      }
     }
   });
 });

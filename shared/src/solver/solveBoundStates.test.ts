@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { EngineInputError } from '../errors.js';
 import { expectClose } from '../../test/expectClose.js';
-import { countBoundStates, solveBoundStates } from './solveBoundStates.js';
+import { countBoundStates, createBoundStateSolver, solveBoundStates } from './solveBoundStates.js';
 import { thresholdCouplings } from './thresholdCouplings.js';
 
 const PT_SOURCE =
@@ -244,6 +244,29 @@ describe('solveBoundStates: exponential well −V0 e^(−|x|) (test computes zer
       const exact = s.parity === 'even' ? ex.even[s.nu >> 1] : ex.odd[s.nu >> 1];
       expectClose(s.epsilon, exact, { rel: 1e-10, inputs: { V0, nu: s.nu }, source: 'J_ν zeros in ν (test-side series + bisection)' });
     }
+  });
+});
+
+describe('createBoundStateSolver: one sampled mesh for the family c·(−1/cosh²x)', () => {
+  it('levels for c = λ′(λ′+1)/2, λ′ = 0.4, 2.5, 6.3 (≤ lambdaMax) and 9.7 (> lambdaMax, rebuild) match (λ′−n)²/2 to 1e-10', () => {
+    const solver = createBoundStateSolver((x) => -1 / Math.cosh(x) ** 2, { scale: 0.5, lambdaMax: 30 });
+    for (const lp of [0.4, 2.5, 6.3, 9.7]) {
+      const c = (lp * (lp + 1)) / 2;
+      const r = solver.solve(c);
+      expect(r.count).toBe(Math.ceil(lp));
+      r.states.forEach((s, n) =>
+        expectClose(s.epsilon, (lp - n) ** 2 / 2, { rel: 1e-10, inputs: { coupling: c, lambdaPrime: lp, n }, source: PT_SOURCE }),
+      );
+      expect(solver.count(c).total).toBe(Math.ceil(lp));
+    }
+  });
+
+  it('a call after the first one reuses the mesh: no new potential evaluations for λ ≤ lambdaMax', () => {
+    const solver = createBoundStateSolver((x) => -1 / Math.cosh(x) ** 2, { scale: 0.5, lambdaMax: 30 });
+    const first = solver.solve(3, { errorEstimate: false });
+    const second = solver.solve(5, { errorEstimate: false });
+    expect(first.potentialEvaluations).toBeGreaterThan(0);
+    expect(second.potentialEvaluations).toBe(0);
   });
 });
 

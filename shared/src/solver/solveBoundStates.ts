@@ -79,6 +79,145 @@ export function countOnMesh(
   return { even, odd, total: even + odd };
 }
 
+/** Per-call options of a reusable solver (see createBoundStateSolver). */
+export interface SolveCallOptions {
+  nuMax?: number;
+  errorEstimate?: boolean;
+  epsMin?: number;
+}
+
+/** A bound-state solver for the family λ·w(x) that keeps its sampled mesh between calls. */
+export interface BoundStateSolver {
+  /** All levels of λ·w (see solveBoundStates). */
+  solve(lambda: number, call?: SolveCallOptions): BoundStateSpectrum;
+  /** State count of λ·w per parity (see countBoundStates). */
+  count(lambda: number): { even: number; odd: number; total: number };
+}
+
+/**
+ * A reusable solver for the family λ·w(x), 0 < λ ≤ lambdaMax: the potential
+ * is sampled once on a mesh whose step density suits lambdaMax (finer than
+ * needed for smaller λ) and the mesh is shared by every later call, which then
+ * costs only the Magnus arithmetic (≈10–20 µs per matching evaluation instead
+ * of new potential evaluations). A call with λ > lambdaMax rebuilds the mesh
+ * for that λ. Same results as solveBoundStates to within the error estimate.
+ * This is the fast path for maps, where one row of constant B (hence constant
+ * ρ_c and w) spans many α (λ = αB).
+ *
+ * Bad input: throws EngineInputError (non-function w, bad options, λ not
+ * positive and finite).
+ *
+ * @example
+ * const s = createBoundStateSolver((x) => -1 / Math.cosh(x) ** 2, { scale: 0.5, lambdaMax: 10 });
+ * s.solve(3).states.map((x) => x.epsilon) // [2, 0.5] (λ′ = 2: (λ′ − n)²/2)
+ */
+export function createBoundStateSolver(
+  w: EvenPotential,
+  opts: BoundStateOptions & { lambdaMax?: number } = {},
+): BoundStateSolver {
+  validateSolverOptions(w, opts);
+  if (opts.lambdaMax !== undefined && !(opts.lambdaMax > 0 && Number.isFinite(opts.lambdaMax))) {
+    throw new EngineInputError('lambdaMax', `must be a positive finite number, got ${String(opts.lambdaMax)}`);
+  }
+  let lambdaRef = opts.lambdaMax ?? opts.coupling ?? 1;
+  let mesh: SinhMesh | undefined;
+  let fine: SinhMesh | undefined;
+  let discarded = 0; // potential evaluations of meshes dropped after a λ > lambdaMax call
+  const evaluationsSoFar = (): number => discarded + (mesh?.evaluations ?? 0) + (fine?.evaluations ?? 0);
+  const coarseFor = (lambda: number): SinhMesh => {
+    if (lambda > lambdaRef) {
+      lambdaRef = lambda;
+      discarded += (mesh?.evaluations ?? 0) + (fine?.evaluations ?? 0);
+      mesh = undefined;
+      fine = undefined;
+    }
+    mesh ??= buildMesh(w, opts, 1, lambdaRef);
+    return mesh;
+  };
+  const fineFor = (): SinhMesh => {
+    fine ??= buildMesh(w, opts, 2, lambdaRef);
+    return fine;
+  };
+  const checkLambda = (lambda: number): void => {
+    if (!(lambda > 0 && Number.isFinite(lambda))) {
+      throw new EngineInputError('lambda', `must be a positive finite number, got ${String(lambda)}`);
+    }
+  };
+  return {
+    count(lambda: number) {
+      checkLambda(lambda);
+      return countOnMesh(coarseFor(lambda), lambda, opts.c4);
+    },
+    solve(lambda: number, call: SolveCallOptions = {}) {
+      checkLambda(lambda);
+      if (call.nuMax !== undefined && !(Number.isInteger(call.nuMax) && call.nuMax >= 0)) {
+        throw new EngineInputError('nuMax', `must be a non-negative integer, got ${String(call.nuMax)}`);
+      }
+      if (call.epsMin !== undefined && !(call.epsMin > 0 && Number.isFinite(call.epsMin))) {
+        throw new EngineInputError('epsMin', `must be a positive finite number, got ${String(call.epsMin)}`);
+      }
+      const ev0 = evaluationsSoFar();
+      const r = solveOnMeshes(coarseFor(lambda), fineFor, lambda, opts.c4, call);
+      r.potentialEvaluations = evaluationsSoFar() - ev0;
+      return r;
+    },
+  };
+}
+
+/** The level search on a coarse mesh and, for the error estimate, a halved-step mesh. Internal. */
+function solveOnMeshes(
+  mesh: SinhMesh,
+  fineMesh: () => SinhMesh,
+  lambda: number,
+  c4: number | undefined,
+  call: SolveCallOptions,
+): BoundStateSpectrum {
+  const depth = lambda * mesh.maxAbsW;
+  if (!(depth > 0)) {
+    return { states: [], countEven: 0, countOdd: 0, count: 0, depth: 0, potentialEvaluations: 0, mismatchEvaluations: 0 };
+  }
+  const epsMin = call.epsMin ?? depth * 1e-26;
+  const sMin = Math.log(epsMin);
+  const nuMax = call.nuMax;
+  let countEven = NaN;
+  let countOdd = NaN;
+  let count = NaN;
+  let nLevels: number;
+  if (nuMax === 0) {
+    nLevels = 1; // the ground state always exists (even, Simon 1976); no count needed
+  } else {
+    const c = countOnMesh(mesh, lambda, c4);
+    countEven = c.even;
+    countOdd = c.odd;
+    count = c.total;
+    nLevels = nuMax === undefined ? count : Math.min(count, nuMax + 1);
+  }
+  const states: BoundState[] = [];
+  let evals = 0;
+  let sUpper = Math.log(depth * 1.0001);
+  for (let nu = 0; nu < nLevels; nu++) {
+    const odd = nu % 2 === 1;
+    const j = nu >> 1;
+    const r = searchLevel(mesh, lambda, odd, j, sUpper, sMin);
+    evals += r.evaluations;
+    states.push({ nu, parity: odd ? 'odd' : 'even', epsilon: r.eps, relError: NaN, resolved: r.resolved });
+    if (r.resolved) sUpper = Math.log(r.eps);
+  }
+  if (call.errorEstimate ?? true) {
+    const fine = fineMesh();
+    for (const st of states) {
+      if (!st.resolved) continue;
+      const r = refineLevel(fine, lambda, st.parity === 'odd', st.nu >> 1, Math.log(st.epsilon));
+      evals += r.evaluations;
+      if (r.resolved) {
+        st.relError = Math.abs(st.epsilon - r.eps) / r.eps;
+        st.epsilon = r.eps;
+      }
+    }
+  }
+  return { states, countEven, countOdd, count, depth, potentialEvaluations: 0, mismatchEvaluations: evals };
+}
+
 /**
  * All bound states of the even 1D potential λ·v:
  *   −½ g''(x) + λ v(x) g(x) = −ε g(x),  ε > 0,
@@ -105,54 +244,9 @@ export function countOnMesh(
 export function solveBoundStates(v: EvenPotential, opts: BoundStateOptions = {}): BoundStateSpectrum {
   validateSolverOptions(v, opts);
   const lambda = opts.coupling ?? 1;
-  const mesh = buildMesh(v, opts);
-  const depth = lambda * mesh.maxAbsW;
-  if (!(depth > 0)) {
-    return {
-      states: [], countEven: 0, countOdd: 0, count: 0, depth: 0,
-      potentialEvaluations: mesh.evaluations, mismatchEvaluations: 0,
-    };
-  }
-  const epsMin = opts.epsMin ?? depth * 1e-26;
-  const sMin = Math.log(epsMin);
-  const nuMax = opts.nuMax;
-  let countEven = NaN;
-  let countOdd = NaN;
-  let count = NaN;
-  let nLevels: number;
-  if (nuMax === 0) {
-    nLevels = 1; // the ground state always exists (even, Simon 1976); no count needed
-  } else {
-    const c = countOnMesh(mesh, lambda, opts.c4);
-    countEven = c.even;
-    countOdd = c.odd;
-    count = c.total;
-    nLevels = nuMax === undefined ? count : Math.min(count, nuMax + 1);
-  }
-  const states: BoundState[] = [];
-  let evals = 0;
-  let sUpper = Math.log(depth * 1.0001);
-  for (let nu = 0; nu < nLevels; nu++) {
-    const odd = nu % 2 === 1;
-    const j = nu >> 1;
-    const r = searchLevel(mesh, lambda, odd, j, sUpper, sMin);
-    evals += r.evaluations;
-    states.push({ nu, parity: odd ? 'odd' : 'even', epsilon: r.eps, relError: NaN, resolved: r.resolved });
-    if (r.resolved) sUpper = Math.log(r.eps);
-  }
-  let potentialEvaluations = mesh.evaluations;
-  if (opts.errorEstimate ?? true) {
-    const fine = buildMesh(v, opts, 2);
-    for (const st of states) {
-      if (!st.resolved) continue;
-      const r = refineLevel(fine, lambda, st.parity === 'odd', st.nu >> 1, Math.log(st.epsilon));
-      evals += r.evaluations;
-      if (r.resolved) {
-        st.relError = Math.abs(st.epsilon - r.eps) / r.eps;
-        st.epsilon = r.eps;
-      }
-    }
-    potentialEvaluations += fine.evaluations;
-  }
-  return { states, countEven, countOdd, count, depth, potentialEvaluations, mismatchEvaluations: evals };
+  return createBoundStateSolver(v, { ...opts, lambdaMax: lambda }).solve(lambda, {
+    nuMax: opts.nuMax,
+    errorEstimate: opts.errorEstimate,
+    epsMin: opts.epsMin,
+  });
 }
