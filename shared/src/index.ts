@@ -8,3 +8,4 @@ export * from './special/index.js';
 export * from './potential/index.js';
 export * from './map/index.js';
 export * from './levels/index.js';
+export * from './version.js';
