@@ -42,9 +42,9 @@ describe('weak-coupling coefficients (quadrature) against closed forms', () => {
     [1, 0.02],
     [3, 0.2],
     [10, 1.5],
-  ])('w_m, m = %s, ρ_c = %s: W1 equals −(π/(8√2))U(3/2, 3/2−m, ρ_c²/2) to 1e-11', (m, rhoC) => {
+  ])('w_m, m = %s, ρ_c = %s: W1 equals −(π/(8√2))U(3/2, 3/2−m, ρ_c²/2) to 1e-12', (m, rhoC) => {
     const c = orbitalWeakCouplingCoefficients(m, rhoC);
-    expectClose(c.W1, scaledPotentialIntegral(m, rhoC), { rel: 1e-11, inputs: { m, rhoC }, source: 'model.md §1 closed form' });
+    expectClose(c.W1, scaledPotentialIntegral(m, rhoC), { rel: 1e-12, inputs: { m, rhoC }, source: 'model.md §1 closed form' });
   });
 });
 
@@ -160,14 +160,14 @@ describe('levels: scaling ε = B·f(αB, r_c√B) against a direct unscaled solv
     [0, 100, 1e-4, 2],
     [1, 1000, 1e-2, 2],
     [3, 10, 0.1, 1],
-  ])('m = %s, α = %s, B = %s, r_c = %s: every level agrees to 1e-9 relative', (m, alpha, B, rc) => {
+  ])('m = %s, α = %s, B = %s, r_c = %s: every level agrees to 1e-11 relative', (m, alpha, B, rc) => {
     const lv = levels({ alpha, fieldAu: B, cutoffBohr: rc, mMax: m }).filter((s) => s.m === m);
     const V = (z: number): number =>
       adiabaticPotential(m, z as Bohr, alpha as AtomicPolarizability, B as AtomicField, rc as Bohr);
     const direct = solveBoundStates(V, { scale: Math.min(rc, 1 / Math.sqrt(B)) / 2, c4: alpha / 2 });
     expect(lv.length).toBe(direct.states.length);
     lv.forEach((s, i) =>
-      expectClose(s.bindingHartree, direct.states[i].epsilon, { rel: 1e-9, inputs: { m, alpha, B, rc, nu: s.nu }, source: 'direct solve in bohr/hartree' }),
+      expectClose(s.bindingHartree, direct.states[i].epsilon, { rel: 1e-11, inputs: { m, alpha, B, rc, nu: s.nu }, source: 'direct solve in bohr/hartree' }),
     );
   });
 
