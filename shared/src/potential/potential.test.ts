@@ -3,6 +3,7 @@ import { DomainError } from '../errors.js';
 import { expectClose, relDiff } from '../../test/expectClose.js';
 import { loadSpecialOracle, ORACLE_SOURCE } from '../../test/oracle.js';
 import { integrateToInfinity } from '../../test/quadrature.js';
+import { mulberry32 } from '../../test/seededRandom.js';
 import { erfcx } from '../special/erfc.js';
 import { atomicField, atomicPolarizability, bohr } from '../units/constructors.js';
 import {
@@ -143,6 +144,18 @@ describe('adiabaticPotential V_m(z) in hartree', () => {
     for (const [m, z, alpha, B, rc] of cases) {
       const v = adiabaticPotential(m, bohr(z), atomicPolarizability(alpha), atomicField(B), bohr(rc));
       expectClose(v, transverseAverage(m, z, alpha, B, rc), { rel: 1e-12, inputs: { m, z, alpha, B, rc }, source: QUAD });
+    }
+  });
+  it('equals the quadrature of the transverse average at 30 seeded random (m, z, α, B, r_c) within 1e-12', () => {
+    const rand = mulberry32(7);
+    for (let i = 0; i < 30; i++) {
+      const m = Math.floor(rand() * 40);
+      const B = Math.pow(10, -6 + 3 * rand()); // 0.24 T … 235 T
+      const alpha = Math.pow(10, 3 * rand());
+      const rc = Math.pow(10, -1 + 2 * rand());
+      const z = Math.pow(10, -2 + 5 * rand());
+      const v = adiabaticPotential(m, bohr(z), atomicPolarizability(alpha), atomicField(B), bohr(rc));
+      expectClose(v, transverseAverage(m, z, alpha, B, rc), { rel: 1e-12, inputs: { seed: 7, i, m, z, alpha, B, rc }, source: QUAD });
     }
   });
   it('is B·(αB)·w_m(z√B; r_c√B) (scaling, model.md §1) within 1e-15 and linear in α', () => {

@@ -7,6 +7,8 @@ import { erfcx } from './erfc.js';
 import { gamma } from './gamma.js';
 import { tricomiU2 } from './tricomiU2.js';
 import { tricomiU32 } from './tricomiU32.js';
+import { integrateToInfinity } from '../../test/quadrature.js';
+import { mulberry32 } from '../../test/seededRandom.js';
 
 const oracle = loadSpecialOracle();
 const DLMF13 = 'F. W. J. Olver et al., NIST Digital Library of Mathematical Functions, §13 (2010–)';
@@ -43,6 +45,17 @@ describe('tricomiU2: U(2, 2−m, x)', () => {
         const hi = tricomiU2(m, x0 * (1 + 1e-15));
         expect(relDiff(lo, hi)).toBeLessThan(1e-13);
       }
+    }
+  });
+  it('equals Gauss–Kronrod quadrature of ∫₀^∞ e^(−xt) t (1+t)^(−m−1) dt (DLMF 13.4.4) at 40 seeded random (m, x), within 1e-12', () => {
+    const rand = mulberry32(20260101);
+    for (let i = 0; i < 40; i++) {
+      const m = Math.floor(rand() * 65);
+      const x = Math.pow(10, -3 + 6 * rand());
+      const f = (t: number): number => Math.exp(-x * t - (m + 1) * Math.log1p(t)) * t;
+      const sc = 1 / (x + m + 1);
+      const q = integrateToInfinity(f, [0, sc / 4, sc, 4 * sc, 16 * sc, 64 * sc], 1e-13);
+      expectClose(tricomiU2(m, x), q, { rel: 1e-12, inputs: { seed: 20260101, i, m, x }, source: 'QK15 quadrature of DLMF 13.4.4' });
     }
   });
   it('has U(2, 2−m, 0) = 1/(m(m−1)) for m ≥ 2 (DLMF 13.2.16) and +Infinity for m ≤ 1', () => {
