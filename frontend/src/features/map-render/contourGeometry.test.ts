@@ -1,0 +1,102 @@
+import { describe, expect, it } from 'vitest';
+import { clipLine, filledContours, isoLinesOf, logIsoLines, stepContours } from './contourGeometry';
+
+// A 4 × 4 field read row by row (row j = 0 first). The left two columns are unbound (0), the right two bound (2).
+// Node i sits at contour coordinate i + ½, so the boundary lies halfway between columns 1 and 2: x = 2.
+const LEFT_UNBOUND_RIGHT_BOUND = [
+  0, 0, 2, 2,
+  0, 0, 2, 2,
+  0, 0, 2, 2,
+  0, 0, 2, 2,
+];
+
+describe('stepContours', () => {
+  it('puts the bound/unbound boundary of a 4 × 4 grid halfway between columns 1 and 2', () => {
+    const [bound] = stepContours(LEFT_UNBOUND_RIGHT_BOUND, 4, 4, [1.5]);
+    const xs = bound.geometry.coordinates[0][0].map((p) => p[0]);
+    expect(Math.min(...xs)).toBe(2);
+    expect(Math.max(...xs)).toBe(4);
+  });
+  it('gives "resonance or better" (≥ ½) and "bound" (≥ 1½) the same boundary on a direct bound/unbound step', () => {
+    const [atLeastResonance, bound] = stepContours(LEFT_UNBOUND_RIGHT_BOUND, 4, 4, [0.5, 1.5]);
+    expect(atLeastResonance.geometry).toEqual(bound.geometry);
+  });
+  it('returns nothing above the largest value (no bound cells → empty region)', () => {
+    const [none] = stepContours(new Array(16).fill(0), 4, 4, [1.5]);
+    expect(none.geometry.coordinates).toEqual([]);
+  });
+  it('reports bands in ascending threshold order whatever the order asked', () => {
+    const bands = stepContours(LEFT_UNBOUND_RIGHT_BOUND, 4, 4, [1.5, 0.5]);
+    expect(bands.map((b) => b.threshold)).toEqual([0.5, 1.5]);
+  });
+});
+
+describe('filledContours', () => {
+  it('interpolates linearly: the level 1.5 between nodes of 0 (x = 1½) and 2 (x = 2½) lies at x = 2¼', () => {
+    const [band] = filledContours(LEFT_UNBOUND_RIGHT_BOUND, 4, 4, [1.5]);
+    const xs = band.geometry.coordinates[0][0].map((p) => p[0]);
+    expect(Math.min(...xs)).toBe(2.25);
+  });
+});
+
+describe('isoLinesOf', () => {
+  it('keeps only the vertical boundary x = 2 of a left/right split, dropping the edges along the grid border', () => {
+    const [bound] = stepContours(LEFT_UNBOUND_RIGHT_BOUND, 4, 4, [1]);
+    const lines = isoLinesOf(bound.geometry, 4, 4);
+    expect(lines).toHaveLength(1);
+    const line = lines[0];
+    expect(line.every(([x]) => x === 2)).toBe(true);
+    // From the first node row (y = ½) to the last (y = 3½): the nodes' extent, where the map is drawn.
+    const ys = line.map(([, y]) => y).sort((a, b) => a - b);
+    expect(ys[0]).toBe(0.5);
+    expect(ys[ys.length - 1]).toBe(3.5);
+  });
+  it('returns a closed loop around an isolated bound island unchanged', () => {
+    // 5 × 5 field with one bound node in the middle: its iso-line never touches the border.
+    const island = new Array(25).fill(0);
+    island[12] = 2;
+    const [bound] = stepContours(island, 5, 5, [1]);
+    const lines = isoLinesOf(bound.geometry, 5, 5);
+    expect(lines).toHaveLength(1);
+    expect(lines[0][0]).toEqual(lines[0][lines[0].length - 1]);
+    // The boundary passes halfway between node 2 (at 2.5) and its neighbours (at 1.5 and 3.5).
+    const xs = lines[0].map(([x]) => x);
+    expect(Math.min(...xs)).toBe(2);
+    expect(Math.max(...xs)).toBe(3);
+  });
+});
+
+describe('clipLine', () => {
+  it('cuts a line crossing the rectangle [0, 1]² into the part inside', () => {
+    expect(clipLine([[-1, 0.5], [2, 0.5]], 0, 0, 1, 1)).toEqual([[[0, 0.5], [1, 0.5]]]);
+  });
+  it('splits a line that leaves and re-enters into two pieces', () => {
+    const pieces = clipLine([[0.2, 0.5], [0.2, 2], [0.8, 2], [0.8, 0.5]], 0, 0, 1, 1);
+    expect(pieces).toEqual([[[0.2, 0.5], [0.2, 1]], [[0.8, 1], [0.8, 0.5]]]);
+  });
+});
+
+describe('logIsoLines', () => {
+  it('places the 10⁻⁸ line a third of the way between cells of 10⁻⁹ and 10⁻⁶ (interpolation in log₁₀)', () => {
+    // Columns: 1e-9, 1e-6, 1e-6 on every row of a 3 × 2 grid.
+    const v = [1e-9, 1e-6, 1e-6, 1e-9, 1e-6, 1e-6];
+    const [{ level, lines }] = logIsoLines(v, 3, 2, [1e-8]);
+    expect(level).toBe(1e-8);
+    expect(lines).toHaveLength(1);
+    // Node 0 at x = 0.5, node 1 at x = 1.5; log goes −9 → −6; −8 lies at one third: x = 0.5 + 1/3.
+    for (const [x] of lines[0]) expect(x).toBeCloseTo(0.5 + 1 / 3, 12);
+  });
+  it('treats zero (nothing bound) as absent and draws the level line hugging the bound side', () => {
+    const v = [0, 1e-3, 0, 1e-3];
+    const [{ lines }] = logIsoLines(v, 2, 2, [1e-6]);
+    expect(lines).toHaveLength(1);
+    for (const [x] of lines[0]) {
+      expect(x).toBeGreaterThan(1.49);
+      expect(x).toBeLessThan(1.5);
+    }
+  });
+  it('returns levels sorted ascending and skips non-positive levels', () => {
+    const v = [1e-9, 1e-3, 1e-9, 1e-3];
+    expect(logIsoLines(v, 2, 2, [1e-4, -1, 1e-6]).map((r) => r.level)).toEqual([1e-6, 1e-4]);
+  });
+});
