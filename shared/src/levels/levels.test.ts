@@ -311,6 +311,22 @@ describe('levels: flags (model.md §3)', () => {
   });
 });
 
+describe('levels: states far below the floor', () => {
+  it('a floor above the weak m ≥ 1 levels: they are reported as below-floor and unresolved, with an upper bound ≤ floor/1000', () => {
+    // α = 1, B = 1e-6: ε(m = 1) ≈ 1.2e-19 hartree; floor 1e-9 hartree, solver searched down to 1e-12.
+    const floor = 1e-9;
+    const lv = levels({ alpha: 1, fieldAu: 1e-6, cutoffBohr: 2, mMax: 3, energyFloorHartree: floor });
+    const weak = lv.filter((s) => s.m >= 1);
+    expect(weak.length).toBeGreaterThan(0);
+    for (const s of weak) {
+      expect(s.flags).toContain('below-floor');
+      expect(s.flags).toContain('unresolved');
+      expect(s.bindingHartree).toBeLessThanOrEqual(floor * 1e-3 * (1 + 1e-12));
+      expect(Number.isNaN(s.relError)).toBe(true);
+    }
+  });
+});
+
 describe('levels: input validation before any work', () => {
   const good = { alpha: 10, fieldAu: 1e-3, cutoffBohr: 2, mMax: 3 };
   it.each([

@@ -23,8 +23,8 @@ import { validateLevelsInput } from './validateLevelsInput.js';
  * any work.
  *
  * @example
- * levels({ alpha: 10, fieldAu: 0.1, cutoffBohr: 2, mMax: 1 }).map((s) => [s.m, s.nu, s.bindingOverB])
- * // [[0, 0, 0.09857…], [1, 0, 0.01313…]]
+ * levels({ alpha: 10, fieldAu: 0.1, cutoffBohr: 2, mMax: 1 }).map((s) => [s.m, s.nu, s.bindingOverB, s.flags])
+ * // [[0, 0, 0.0985747063…, ['cutoff-dominated']], [1, 0, 0.0131344230…, []]]
  */
 export function levels(input: LevelsInput): LevelState[] {
   validateLevelsInput(input);

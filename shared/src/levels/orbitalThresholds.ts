@@ -12,7 +12,7 @@ import { validateOrbitalArgs } from './validateOrbitalArgs.js';
  * Domain: integer m in 0…64, ρ_c > 0 finite, integer nuMax ≥ 0; otherwise throws EngineInputError.
  *
  * @example
- * orbitalThresholds(1, 0.2, 2) // [0, λ_c,1, λ_c,2]
+ * orbitalThresholds(1, 0.3, 2) // [0, 7.16931170…, 16.4282130…]
  */
 export function orbitalThresholds(m: number, rhoC: number, nuMax: number, tol?: number): number[] {
   validateOrbitalArgs(m, undefined, rhoC);

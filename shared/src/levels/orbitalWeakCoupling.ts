@@ -22,7 +22,7 @@ export function orbitalWeakCouplingCoefficients(m: number, rhoC: number): WeakCo
  * addition λ/ρ_c ≪ 1 because W1 ∝ 1/ρ_c there).
  *
  * @example
- * orbitalWeakCoupling(2, 1e-3, 0.02).epsilon // ≈ 2.9e-9·… (ε̃ ∝ λ² for small λ)
+ * orbitalWeakCoupling(2, 1e-3, 0.02).epsilon // 7.5581486e-9 (solver: 7.5581485994e-9)
  */
 export function orbitalWeakCoupling(
   m: number,

@@ -14,8 +14,10 @@ import { validateOrbitalArgs } from './validateOrbitalArgs.js';
  * and the depth. Solver: sinh mesh a = min(ρ_c, 1)/2, sixth-order Magnus,
  * Prüfer matching (see solveBoundStates).
  *
- * Speed (warm, one core): ground state only (nuMax: 0, errorEstimate: false)
- * ≈ 0.1–0.3 ms at tol 2e-7 and ≈ 0.3–1 ms at tol 1e-10; see docs/physics/solver.md.
+ * Speed (warm, CPU time, one core): ground state only (nuMax: 0, errorEstimate:
+ * false) median 0.4 ms (max 1.3 ms) at tol 2e-7, 0.6 ms (max 2.5 ms) at tol 1e-10
+ * over typical map points; ≈ 0.1 ms per call with createOrbitalSolver, which
+ * keeps the sampled potential. See docs/physics/solver.md.
  *
  * Domain: integer m in 0…64, λ > 0, ρ_c > 0 finite; otherwise throws
  * EngineInputError naming the parameter.

@@ -109,7 +109,8 @@ export interface BoundStateSolver {
  *
  * @example
  * const s = createBoundStateSolver((x) => -1 / Math.cosh(x) ** 2, { scale: 0.5, lambdaMax: 10 });
- * s.solve(3).states.map((x) => x.epsilon) // [2, 0.5] (λ′ = 2: (λ′ − n)²/2)
+ * s.solve(4.375).states.map((x) => x.epsilon) // [3.12499999999998, 1.12499999999994, 0.12499999999992]
+ * // (Pöschl–Teller λ′ = 2.5: (λ′ − n)²/2)
  */
 export function createBoundStateSolver(
   w: EvenPotential,
