@@ -1,5 +1,5 @@
 import { makeScaledPotential } from '../potential/index.js';
-import { solveBoundStates } from '../solver/solveBoundStates.js';
+import { createBoundStateSolver } from '../solver/solveBoundStates.js';
 import { orbitalSolverOptions } from './orbitalSolverOptions.js';
 import type { OrbitalOptions, OrbitalSpectrum } from './types.js';
 import { validateOrbitalArgs } from './validateOrbitalArgs.js';
@@ -29,12 +29,11 @@ import { validateOrbitalArgs } from './validateOrbitalArgs.js';
 export function solveOrbital(m: number, lambda: number, rhoC: number, options: OrbitalOptions = {}): OrbitalSpectrum {
   validateOrbitalArgs(m, lambda, rhoC);
   const w = makeScaledPotential(m, rhoC);
-  const r = solveBoundStates(w, {
-    ...orbitalSolverOptions(lambda, rhoC),
-    tol: options.tol,
+  const r = createBoundStateSolver(w, { ...orbitalSolverOptions(lambda, rhoC), tol: options.tol }).solve(lambda, {
     nuMax: options.nuMax,
     errorEstimate: options.errorEstimate,
     epsMin: options.epsMin,
+    guess: options.guess,
   });
   return {
     m,

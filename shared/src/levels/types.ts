@@ -81,4 +81,6 @@ export interface OrbitalOptions {
   errorEstimate?: boolean;
   /** Smallest scaled binding searched. Default 1e-26·depth. */
   epsMin?: number;
+  /** Warm start: approximate ε̃ per ν (speed only; see SolveCallOptions.guess). */
+  guess?: readonly number[];
 }

@@ -17,8 +17,9 @@ export interface LevelSearchResult {
 const S_TOL = 2e-15;
 
 /**
- * @param sHi  ln ε with F(e^sHi) < jπ, i.e. above the level (raised if not)
- * @param sMin ln of the smallest ε searched
+ * @param sHi    ln ε with F(e^sHi) < jπ, i.e. above the level (raised if not)
+ * @param sMin   ln of the smallest ε searched
+ * @param sGuess optional ln ε near the level (warm start): the bracket is grown around it
  */
 export function searchLevel(
   mesh: SinhMesh,
@@ -27,6 +28,7 @@ export function searchLevel(
   j: number,
   sHi: number,
   sMin: number,
+  sGuess?: number,
 ): LevelSearchResult {
   let evaluations = 0;
   const target = j * Math.PI;
@@ -34,30 +36,75 @@ export function searchLevel(
     evaluations++;
     return pruferMismatch(mesh, lambda, Math.exp(s), odd) - target;
   };
-  let gHi = G(sHi);
-  let guard = 0;
-  while (gHi >= 0 && guard++ < 8) {
-    sHi += 1;
-    gHi = G(sHi);
-  }
-  let step = 1;
-  let sLo = sHi - step;
-  let gLo = 0;
-  for (;;) {
-    if (sLo <= sMin) {
-      sLo = sMin;
-      gLo = G(sLo);
-      if (gLo <= 0) return { eps: Math.exp(sMin), resolved: false, evaluations };
-      break;
+  let lo = NaN;
+  let gLo = NaN;
+  let hi = NaN;
+  let gHi = NaN;
+  if (sGuess !== undefined && sGuess > sMin && sGuess < sHi) {
+    const g0 = G(sGuess);
+    let d = 0.02;
+    if (g0 > 0) {
+      lo = sGuess;
+      gLo = g0;
+      for (;;) {
+        const s = lo + d;
+        if (s >= sHi) break;
+        const g = G(s);
+        if (g <= 0) {
+          hi = s;
+          gHi = g;
+          break;
+        }
+        lo = s;
+        gLo = g;
+        d *= 4;
+      }
+    } else {
+      hi = sGuess;
+      gHi = g0;
+      for (;;) {
+        const s = hi - d;
+        if (s <= sMin) break;
+        const g = G(s);
+        if (g > 0) {
+          lo = s;
+          gLo = g;
+          break;
+        }
+        hi = s;
+        gHi = g;
+        d *= 4;
+      }
     }
-    gLo = G(sLo);
-    if (gLo > 0) break;
-    sHi = sLo;
-    gHi = gLo;
-    step *= 2;
-    sLo = sHi - step;
   }
-  const r = brentRoot(G, sLo, sHi, gLo, gHi, S_TOL);
+  if (Number.isNaN(hi)) {
+    hi = sHi;
+    gHi = G(hi);
+    let guard = 0;
+    while (gHi >= 0 && guard++ < 8) {
+      hi += 1;
+      gHi = G(hi);
+    }
+  }
+  if (Number.isNaN(lo)) {
+    let step = 1;
+    lo = hi - step;
+    for (;;) {
+      if (lo <= sMin) {
+        lo = sMin;
+        gLo = G(lo);
+        if (gLo <= 0) return { eps: Math.exp(sMin), resolved: false, evaluations };
+        break;
+      }
+      gLo = G(lo);
+      if (gLo > 0) break;
+      hi = lo;
+      gHi = gLo;
+      step *= 2;
+      lo = hi - step;
+    }
+  }
+  const r = brentRoot(G, lo, hi, gLo, gHi, S_TOL);
   return { eps: Math.exp(r.x), resolved: true, evaluations };
 }
 

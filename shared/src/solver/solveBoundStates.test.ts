@@ -261,6 +261,18 @@ describe('createBoundStateSolver: one sampled mesh for the family c·(−1/cosh�
     }
   });
 
+  it('a warm-start guess gives the same levels (1e-13) with fewer matching evaluations', () => {
+    const solver = createBoundStateSolver((x) => -1 / Math.cosh(x) ** 2, { scale: 0.5, lambdaMax: 30 });
+    const c = 4.375; // λ′ = 2.5
+    const cold = solver.solve(c, { errorEstimate: false });
+    const warm = solver.solve(c, { errorEstimate: false, guess: [3.125 * 1.001, 1.125 * 0.999, 0.125 * 1.01] });
+    warm.states.forEach((s, n) => expectClose(s.epsilon, cold.states[n].epsilon, { rel: 1e-13, inputs: { n } }));
+    expect(warm.mismatchEvaluations).toBeLessThan(cold.mismatchEvaluations);
+    // a useless guess (far off, or invalid) still converges to the same levels
+    const bad = solver.solve(c, { errorEstimate: false, guess: [1e-30, -1, Number.NaN] });
+    bad.states.forEach((s, n) => expectClose(s.epsilon, cold.states[n].epsilon, { rel: 1e-13, inputs: { n, guess: 'bad' } }));
+  });
+
   it('a call after the first one reuses the mesh: no new potential evaluations for λ ≤ lambdaMax', () => {
     const solver = createBoundStateSolver((x) => -1 / Math.cosh(x) ** 2, { scale: 0.5, lambdaMax: 30 });
     const first = solver.solve(3, { errorEstimate: false });

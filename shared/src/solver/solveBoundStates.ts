@@ -84,6 +84,12 @@ export interface SolveCallOptions {
   nuMax?: number;
   errorEstimate?: boolean;
   epsMin?: number;
+  /**
+   * Warm start: approximate ε of level ν at index ν (e.g. from a neighbouring
+   * map cell). Only the speed depends on it; a wrong guess costs a few extra
+   * evaluations. Entries that are missing, non-finite or ≤ 0 are ignored.
+   */
+  guess?: readonly number[];
 }
 
 /** A bound-state solver for the family λ·w(x) that keeps its sampled mesh between calls. */
@@ -199,7 +205,9 @@ function solveOnMeshes(
   for (let nu = 0; nu < nLevels; nu++) {
     const odd = nu % 2 === 1;
     const j = nu >> 1;
-    const r = searchLevel(mesh, lambda, odd, j, sUpper, sMin);
+    const g = call.guess?.[nu];
+    const sGuess = g !== undefined && g > 0 && Number.isFinite(g) ? Math.log(g) : undefined;
+    const r = searchLevel(mesh, lambda, odd, j, sUpper, sMin, sGuess);
     evals += r.evaluations;
     states.push({ nu, parity: odd ? 'odd' : 'even', epsilon: r.eps, relError: NaN, resolved: r.resolved });
     if (r.resolved) sUpper = Math.log(r.eps);
