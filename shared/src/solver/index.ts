@@ -1,4 +1,10 @@
-export * from './types.js';
-export * from './solveBoundStates.js';
-export * from './brentRoot.js';
-export * from './thresholdCouplings.js';
+export type { EvenPotential, Parity, BoundStateOptions, BoundState, BoundStateSpectrum } from './types.js';
+export {
+  solveBoundStates,
+  countBoundStates,
+  createBoundStateSolver,
+  type BoundStateSolver,
+  type SolveCallOptions,
+} from './solveBoundStates.js';
+export { thresholdCouplings } from './thresholdCouplings.js';
+export { brentRoot } from './brentRoot.js';
