@@ -340,6 +340,8 @@ describe('levels: input validation before any work', () => {
     ['mMax', { mMax: 1.5 }],
     ['mMax', { mMax: -1 }],
     ['energyFloorHartree', { energyFloorHartree: -1e-9 }],
+    ['tol', { tol: 0 }],
+    ['hasFieldFreeAnion', { hasFieldFreeAnion: 'yes' as unknown as boolean }],
   ])('throws EngineInputError naming %s for %o', (name, patch) => {
     let caught: unknown;
     try {
