@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatScientific, formatWithUnit, powerOfTen, superscript } from './formatNumber';
+import { formatScientific, formatWithUnit, parseScientific, powerOfTen, superscript } from './formatNumber';
 
 describe('superscript and powerOfTen', () => {
   it('writes negative and multi-digit exponents with superscript characters', () => {
@@ -45,5 +45,21 @@ describe('formatScientific', () => {
 describe('formatWithUnit', () => {
   it('joins the number and the unit with a narrow no-break space', () => {
     expect(formatWithUnit(2.4e-9, 'µeV')).toBe('2.4 × 10⁻⁹\u202fµeV');
+  });
+});
+
+describe('parseScientific', () => {
+  it('reads back what formatScientific writes', () => {
+    for (const x of [2.4e-9, 1e-9, 0.0421, 45, -3.2e-7, 6.02e23]) expect(parseScientific(formatScientific(x))).toBeCloseTo(x, 12 - Math.log10(Math.abs(x)));
+  });
+  it('reads e-notation, caret exponents and a bare power of ten', () => {
+    expect(parseScientific('2.4e-9')).toBe(2.4e-9);
+    expect(parseScientific('2.4 x 10^-9')).toBeCloseTo(2.4e-9, 22);
+    expect(parseScientific('10⁻³')).toBeCloseTo(1e-3, 18);
+  });
+  it('returns NaN for text that is not a number', () => {
+    expect(parseScientific('ten')).toBeNaN();
+    expect(parseScientific('')).toBeNaN();
+    expect(parseScientific('1,5')).toBeNaN();
   });
 });

@@ -72,3 +72,21 @@ export function formatScientific(x: number, options: FormatOptions = {}): string
 export function formatWithUnit(x: number, unitLabel: string, options?: FormatOptions): string {
   return unitLabel ? `${formatScientific(x, options)}\u202f${unitLabel}` : formatScientific(x, options);
 }
+
+const FROM_SUPERSCRIPT: Record<string, string> = Object.fromEntries(Object.entries(SUPERSCRIPT_DIGITS).map(([k, v]) => [v, k]));
+
+/**
+ * Reads a number written by a person or by `formatScientific`: "2.4 × 10⁻⁹", "10⁻⁹", "2.4e-9", "2.4 x 10^-9",
+ * "−3" (typographic minus). Returns NaN for anything else.
+ */
+export function parseScientific(text: string): number {
+  const t = text.trim().replace(/−/g, '-').replace(/\u202f|\s/g, '');
+  if (t === '') return Number.NaN;
+  const m = /^([+-]?(?:\d+\.?\d*|\.\d+))?(?:[×x*]?10(?:\^([+-]?\d+)|([⁻⁺]?[⁰¹²³⁴⁵⁶⁷⁸⁹]+)))?$/.exec(t);
+  if (m && (m[2] !== undefined || m[3] !== undefined)) {
+    const mantissa = m[1] === undefined ? 1 : Number(m[1]);
+    const exponent = m[2] !== undefined ? Number(m[2]) : Number([...m[3]].map((c) => FROM_SUPERSCRIPT[c]).join(''));
+    return mantissa * 10 ** exponent;
+  }
+  return /^[+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?$/i.test(t) ? Number(t) : Number.NaN;
+}

@@ -1,0 +1,35 @@
+import { bindingInputsKey, validateSetup, type MapSetup, type SetupIssue } from '@fieldbound/shared';
+
+/**
+ * A setup being edited: shaped like MapSetup, but any number may be missing (`undefined`) or not a number
+ * while the user types. `validateSetup` — the same rules the server applies — says what is wrong.
+ */
+export type SetupDraft = MapSetup;
+
+/** A copy of `obj` with the value at `path` replaced (plain objects and arrays only). */
+export function setIn<T>(obj: T, path: readonly (string | number)[], value: unknown): T {
+  if (path.length === 0) return value as T;
+  const [head, ...rest] = path;
+  const src = obj as unknown as Record<string | number, unknown>;
+  const copy = (Array.isArray(obj) ? [...obj] : { ...src }) as Record<string | number, unknown>;
+  copy[head] = setIn(src[head], rest, value);
+  return copy as T;
+}
+
+/** Issues whose path is `path` or lies below it (e.g. "contours.levelsKelvin" also takes "contours.levelsKelvin.2"). */
+export function issuesAt(issues: readonly SetupIssue[], path: string): string[] {
+  return issues.filter((i) => i.path === path || i.path.startsWith(`${path}.`)).map((i) => i.message);
+}
+
+export interface DraftCheck {
+  issues: SetupIssue[];
+  valid: MapSetup | null;
+  /** The draft changes what the engine computes (not only display, motion or contours). */
+  needsCompute: boolean;
+}
+
+export function checkDraft(draft: SetupDraft, applied: MapSetup): DraftCheck {
+  const result = validateSetup(draft);
+  if (!result.ok) return { issues: result.issues, valid: null, needsCompute: false };
+  return { issues: [], valid: result.setup, needsCompute: bindingInputsKey(result.setup) !== bindingInputsKey(applied) };
+}
