@@ -1,8 +1,10 @@
-import { ConsoleLogger, type INestApplication, ValidationPipe } from '@nestjs/common';
+import { ConsoleLogger, type INestApplication } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import helmet from 'helmet';
 import { AppModule } from './app.module';
+import type { Clock } from './common/clock';
+import { createValidationPipe } from './common/validation';
 import { loadConfig, type AppConfig } from './config/configuration';
 
 export interface CreateAppOptions {
@@ -10,18 +12,19 @@ export interface CreateAppOptions {
   logs?: 'json' | 'silent';
   /** Defaults to the environment's configuration. */
   config?: AppConfig;
+  /** Replaces the system clock (tests). */
+  clock?: Clock;
 }
 
 /** Builds the configured application without listening: shared by main.ts and the integration tests. */
 export async function createApp(options: CreateAppOptions = {}): Promise<INestApplication> {
   const logger = options.logs === 'silent' ? false : new ConsoleLogger({ json: true, colors: false });
-  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(options.config ?? loadConfig()), { logger, bufferLogs: false, abortOnError: false });
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(options.config ?? loadConfig(), { clock: options.clock }), { logger, bufferLogs: false, abortOnError: false });
   app.setGlobalPrefix('api');
   app.use(helmet());
   app.set('trust proxy', 'loopback');
-  app.useGlobalPipes(
-    new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),
-  );
+  // whitelist + forbidNonWhitelisted + transform; 400s list messages per field (src/common/validation.ts).
+  app.useGlobalPipes(createValidationPipe());
   app.enableShutdownHooks();
   return app;
 }

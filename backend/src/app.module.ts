@@ -2,15 +2,28 @@ import { type DynamicModule, type MiddlewareConsumer, Module, type NestModule } 
 import { ConfigModule } from '@nestjs/config';
 import { MikroOrmModule } from '@mikro-orm/nestjs';
 import { ServeStaticModule } from '@nestjs/serve-static';
+import { ThrottlerModule } from '@nestjs/throttler';
 import type { AppConfig } from './config/configuration';
 import { ormOptions } from './database/mikro-orm.config';
 import { HealthModule } from './health/health.module';
 import { RequestLoggingMiddleware } from './common/request-logging.middleware';
+import { type Clock, ClockModule } from './common/clock';
+import { AuditModule } from './audit/audit.module';
+import { AuthModule } from './auth/auth.module';
+import { InvitationsModule } from './invitations/invitations.module';
+import { MailModule } from './mail/mail.module';
+import { TeamsModule } from './teams/teams.module';
+import { UsersModule } from './users/users.module';
+
+export interface AppModuleOptions {
+  /** Replaces the system clock (tests move time forward with it). */
+  clock?: Clock;
+}
 
 /** The root module, built from one configuration so tests and extra instances can run side by side. */
 @Module({})
 export class AppModule implements NestModule {
-  static forRoot(config: AppConfig): DynamicModule {
+  static forRoot(config: AppConfig, options: AppModuleOptions = {}): DynamicModule {
     const staticSite = config.staticDir
       ? // The built single-page app, served from the same origin as the API.
         [ServeStaticModule.forRoot({ rootPath: config.staticDir, exclude: ['/api/{*path}'] })]
@@ -20,8 +33,20 @@ export class AppModule implements NestModule {
       imports: [
         ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [() => config] }),
         MikroOrmModule.forRoot({ ...ormOptions(config.database), registerRequestContext: true }),
+        ClockModule.forRoot(options.clock),
+        // Applied only where a route says @UseGuards(ThrottlerGuard): sign-in, register, password reset.
+        ThrottlerModule.forRoot({
+          throttlers: [{ name: 'default', ttl: config.auth.rateLimit.windowSeconds * 1000, limit: config.auth.rateLimit.limit }],
+          errorMessage: 'Too many attempts from this address. Wait a minute, then try again.',
+        }),
         ...staticSite,
         HealthModule,
+        MailModule,
+        AuditModule,
+        AuthModule,
+        UsersModule,
+        TeamsModule,
+        InvitationsModule,
       ],
     };
   }

@@ -1,18 +1,46 @@
 import type { INestApplication } from '@nestjs/common';
 import { createApp } from '../src/app.factory';
+import { Clock } from '../src/common/clock';
 import { loadConfig, type AppConfig } from '../src/config/configuration';
 
 export interface TestApp {
   app: INestApplication;
   baseUrl: string;
+  config: AppConfig;
   close(): Promise<void>;
 }
 
-/** The real application on an ephemeral loopback port, against the test database. */
-export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
-  const config: AppConfig = { ...loadConfig(), staticDir: null, port: 0, ...overrides };
-  const app = await createApp({ logs: 'silent', config });
+export interface TestAppOverrides extends Partial<Omit<AppConfig, 'auth'>> {
+  auth?: Partial<AppConfig['auth']>;
+}
+
+/** A clock the test moves by hand. Starts at the real time. */
+export class TestClock extends Clock {
+  private offsetMs = 0;
+  now(): Date {
+    return new Date(Date.now() + this.offsetMs);
+  }
+  advance(ms: number): void {
+    this.offsetMs += ms;
+  }
+}
+
+/**
+ * The real application on an ephemeral loopback port, against the test database, with the local
+ * mail fake and (unless a test asks for less) rate limits high enough not to get in the way.
+ */
+export async function startTestApp(overrides: TestAppOverrides = {}, options: { clock?: Clock } = {}): Promise<TestApp> {
+  const base = loadConfig();
+  const config: AppConfig = {
+    ...base,
+    staticDir: null,
+    port: 0,
+    ...overrides,
+    auth: { ...base.auth, rateLimit: { limit: 10_000, windowSeconds: 60 }, ...overrides.auth },
+    mail: { ...base.mail, smtpUrl: null, fakePort: 0, ...overrides.mail },
+  };
+  const app = await createApp({ logs: 'silent', config, clock: options.clock });
   await app.listen(0, '127.0.0.1');
   const address = app.getHttpServer().address() as { port: number };
-  return { app, baseUrl: `http://127.0.0.1:${address.port}/api`, close: () => app.close() };
+  return { app, config, baseUrl: `http://127.0.0.1:${address.port}/api`, close: () => app.close() };
 }

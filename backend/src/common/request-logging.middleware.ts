@@ -2,8 +2,32 @@ import { Injectable, Logger, type NestMiddleware } from '@nestjs/common';
 import type { NextFunction, Request, Response } from 'express';
 
 /**
+ * Path segments that look like secrets (one-time link tokens such as `<uuid>.<secret>`, viewing-link
+ * tokens) are replaced by `:secret`; plain UUIDs stay readable.
+ */
+export function redactPath(path: string): string {
+  return path
+    .split('/')
+    .map((segment) => {
+      const decoded = safeDecode(segment);
+      const isUuid = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(decoded);
+      return !isUuid && decoded.length >= 24 ? ':secret' : segment;
+    })
+    .join('/');
+}
+
+function safeDecode(segment: string): string {
+  try {
+    return decodeURIComponent(segment);
+  } catch {
+    return segment;
+  }
+}
+
+/**
  * One structured line per request: method, path (query string dropped, since viewing-link
- * and reset tokens may travel there), status, duration and user id when known.
+ * and reset tokens may travel there, and secret-looking segments redacted), status, duration
+ * and user id when known.
  */
 @Injectable()
 export class RequestLoggingMiddleware implements NestMiddleware {
@@ -16,7 +40,7 @@ export class RequestLoggingMiddleware implements NestMiddleware {
       const user = (req as Request & { user?: { id?: string } }).user?.id;
       this.logger.log({
         method: req.method,
-        path: req.originalUrl.split('?')[0],
+        path: redactPath(req.originalUrl.split('?')[0]),
         status: res.statusCode,
         ms: Math.round(ms * 10) / 10,
         ...(user ? { user } : {}),

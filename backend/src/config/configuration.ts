@@ -10,6 +10,29 @@ export interface AppConfig {
   dataDir: string;
   staticDir: string | null;
   jwtSecret: string;
+  /** Where people open the app; links in e-mails start with it. */
+  publicUrl: string;
+  auth: {
+    /** Lifetime of a JWT access token. */
+    accessTokenTtlSeconds: number;
+    /** Lifetime of a refresh token (each rotation starts a new one). */
+    refreshTokenTtlSeconds: number;
+    /** A rotated refresh token presented again within this window is treated as a concurrent refresh, not theft. */
+    refreshReuseGraceSeconds: number;
+    passwordResetTtlSeconds: number;
+    invitationTtlSeconds: number;
+    /** Send the refresh cookie only over HTTPS (on when publicUrl is https). */
+    secureCookies: boolean;
+    /** Requests per IP per window on sign-in, register and forgot-password (each counted separately). */
+    rateLimit: { limit: number; windowSeconds: number };
+  };
+  mail: {
+    /** smtp(s)://user:pass@host:port for real delivery; null starts the local fake SMTP server. */
+    smtpUrl: string | null;
+    from: string;
+    /** Port of the local fake SMTP server on 127.0.0.1 (0 picks a free one). */
+    fakePort: number;
+  };
   database: {
     host: string;
     port: number;
@@ -37,6 +60,14 @@ function intFromEnv(name: string, fallback: number): number {
 }
 
 /** The secret from the environment, else one generated on first start and kept in .data/. */
+function positiveIntFromEnv(name: string, fallback: number): number {
+  const raw = process.env[name];
+  if (raw === undefined || raw === '') return fallback;
+  const value = Number(raw);
+  if (!Number.isInteger(value) || value < 0) throw new Error(`${name} must be a whole number of seconds or a count, got "${raw}"`);
+  return value;
+}
+
 function jwtSecret(dataDir: string): string {
   const fromEnv = process.env.FIELDBOUND_JWT_SECRET;
   if (fromEnv) return fromEnv;
@@ -59,13 +90,34 @@ export function loadConfig(): AppConfig {
   const dataDir = path.resolve(process.env.FIELDBOUND_DATA_DIR ?? path.join(repoRoot, '.data'));
   const defaultStatic = path.join(repoRoot, 'frontend', 'dist');
   const staticDir = process.env.FIELDBOUND_STATIC_DIR ?? defaultStatic;
+  const host = process.env.FIELDBOUND_HOST ?? '127.0.0.1';
+  const port = intFromEnv('FIELDBOUND_PORT', 3000);
+  const publicUrl = (process.env.FIELDBOUND_PUBLIC_URL ?? `http://${host === '0.0.0.0' ? '127.0.0.1' : host}:${port}`).replace(/\/+$/, '');
   return {
     version: readVersion(),
-    host: process.env.FIELDBOUND_HOST ?? '127.0.0.1',
-    port: intFromEnv('FIELDBOUND_PORT', 3000),
+    host,
+    port,
     dataDir,
     staticDir: fs.existsSync(staticDir) ? staticDir : null,
     jwtSecret: jwtSecret(dataDir),
+    publicUrl,
+    auth: {
+      accessTokenTtlSeconds: positiveIntFromEnv('FIELDBOUND_ACCESS_TOKEN_TTL', 15 * 60),
+      refreshTokenTtlSeconds: positiveIntFromEnv('FIELDBOUND_REFRESH_TOKEN_TTL', 30 * 24 * 3600),
+      refreshReuseGraceSeconds: positiveIntFromEnv('FIELDBOUND_REFRESH_REUSE_GRACE', 10),
+      passwordResetTtlSeconds: positiveIntFromEnv('FIELDBOUND_PASSWORD_RESET_TTL', 3600),
+      invitationTtlSeconds: positiveIntFromEnv('FIELDBOUND_INVITATION_TTL', 7 * 24 * 3600),
+      secureCookies: publicUrl.startsWith('https://'),
+      rateLimit: {
+        limit: positiveIntFromEnv('FIELDBOUND_AUTH_RATE_LIMIT', 10),
+        windowSeconds: positiveIntFromEnv('FIELDBOUND_AUTH_RATE_WINDOW', 60),
+      },
+    },
+    mail: {
+      smtpUrl: process.env.FIELDBOUND_SMTP_URL || null,
+      from: process.env.FIELDBOUND_MAIL_FROM ?? 'Fieldbound <no-reply@fieldbound.local>',
+      fakePort: intFromEnv('FIELDBOUND_FAKE_SMTP_PORT', 0),
+    },
     database: {
       host: process.env.FIELDBOUND_DB_HOST ?? '127.0.0.1',
       port: intFromEnv('FIELDBOUND_DB_PORT', 54329),

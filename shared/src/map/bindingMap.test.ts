@@ -8,13 +8,14 @@
 import { describe, expect, it } from 'vitest';
 import { EngineInputError } from '../errors.js';
 import { SetupValidationError } from '../setup/mapSetup.js';
-import { bindingMap } from './bindingMap.js';
+import { bindingMap, bindingMapWindow } from './bindingMap.js';
+import { bindingMapDirect } from './bindingMapDirect.js';
 import { compareWithDirect } from './compareWithDirect.js';
 import { MAP_FLAG, type MapProgress } from './mapTypes.js';
 import { auToTesla, mapTestSetup, seededRandom } from './testSetups.js';
 
 const TOL = 1e-6;
-const N = Number(process.env.FIELDBOUND_MAP_TEST_N ?? 12);
+const N = Number(process.env.FIELDBOUND_MAP_TEST_N ?? 48);
 
 const SETUPS = {
   // the benchmark's ranges (issue 3, item 9) on a small grid: weak to strong coupling, excited levels
@@ -95,6 +96,48 @@ describe('bindingMap result layout and flags', () => {
       }
     }
     expect(below).toBeGreaterThan(0);
+  });
+});
+
+describe('bindingMapWindow and the direct reference map', () => {
+  const s = mapTestSetup({ alpha: [5, 800, 'log'], fieldTesla: [auToTesla(1e-3), auToTesla(5e-2), 'log'], grid: [20, 18], mMax: 2, cutoffBohr: 1.5, floorKelvin: 0 });
+
+  it('a window of rows has exactly the numbers of those rows of the full map (same model, bit-identical)', () => {
+    const full = bindingMap(s);
+    const w = bindingMapWindow(s, 5, 12);
+    expect(w.nField).toBe(7);
+    expect(w.levelsPerOrbital).toBe(full.levelsPerOrbital);
+    expect(Array.from(w.fieldsAu)).toEqual(Array.from(full.fieldsAu.subarray(5, 12)));
+    const L = full.levelsPerOrbital;
+    for (let m = 0; m <= full.mMax; m++) {
+      for (let c = 0; c < w.cellCount; c++) {
+        const cf = 5 * full.nAlpha + c;
+        expect(w.counts[m * w.cellCount + c]).toBe(full.counts[m * full.cellCount + cf]);
+        expect(w.flags[m * w.cellCount + c]).toBe(full.flags[m * full.cellCount + cf]);
+        for (let nu = 0; nu < L; nu++) {
+          expect(w.bindingHartree[(m * L + nu) * w.cellCount + c]).toBe(full.bindingHartree[(m * L + nu) * full.cellCount + cf]);
+        }
+      }
+    }
+  });
+
+  it('the fast map agrees with the all-direct reference map cell by cell within 1e-6 (consistency with the direct solver)', () => {
+    const small = { ...s, grid: { nAlpha: 9, nField: 7 } };
+    const fast = bindingMap(small);
+    const ref = bindingMapDirect(small);
+    expect(Array.from(fast.counts)).toEqual(Array.from(ref.counts));
+    const L = Math.min(fast.levelsPerOrbital, ref.levelsPerOrbital);
+    for (let m = 0; m <= fast.mMax; m++) {
+      for (let c = 0; c < fast.cellCount; c++) {
+        for (let nu = 0; nu < fast.counts[m * fast.cellCount + c]; nu++) {
+          const a = fast.bindingHartree[(m * fast.levelsPerOrbital + nu) * fast.cellCount + c];
+          const b = ref.bindingHartree[(m * ref.levelsPerOrbital + nu) * ref.cellCount + c];
+          expect(Math.abs(a - b) / b, `m=${m} cell=${c} ν=${nu}`).toBeLessThanOrEqual(TOL);
+        }
+        expect(fast.flags[m * fast.cellCount + c] & ~MAP_FLAG.DIRECT_SOLVE).toBe(ref.flags[m * ref.cellCount + c] & ~MAP_FLAG.DIRECT_SOLVE);
+      }
+    }
+    expect(L).toBeGreaterThanOrEqual(1);
   });
 });
 

@@ -1,6 +1,11 @@
 export * from './mapTypes.js';
-export { bindingMap } from './bindingMap.js';
+export { bindingMap, bindingMapWindow } from './bindingMap.js';
 export { bindingMapDirect } from './bindingMapDirect.js';
+export { prepareBindingMap } from './prepareBindingMap.js';
+export { evaluateBindingMapRows, type BindingMapWindowResult } from './evaluateBindingMapRows.js';
+export type { BindingMapModel } from './bindingMapModel.js';
+export type { OrbitalModel, SurfaceModel, ThresholdModel, GroupModel } from './orbitalModel.js';
 export { axisNodes, mapAxes } from './mapAxes.js';
+export { compareWithDirect, type DirectComparison } from './compareWithDirect.js';
 export type { BindingMapOptions } from './bindingMapOptions.js';
 export type { AbortSignalLike } from './abortError.js';

@@ -44,6 +44,8 @@ export interface BindingMapResult {
   flags: Uint8Array;
   /** Largest estimated relative error of any stored binding energy. */
   maxRelError: number;
+  /** Number of (orbital, cell) pairs that were solved directly (MAP_FLAG.DIRECT_SOLVE); absent if not tracked. */
+  directSolves?: number;
   /** Wall time spent, milliseconds. */
   elapsedMs: number;
 }

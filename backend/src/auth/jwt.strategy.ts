@@ -1,0 +1,50 @@
+import { Injectable } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { PassportStrategy } from '@nestjs/passport';
+import { EntityManager } from '@mikro-orm/postgresql';
+import { ExtractJwt, Strategy } from 'passport-jwt';
+import type { AppConfig } from '../config/configuration';
+import type { AuthUser } from '../common/current-user.decorator';
+import { ApiError } from '../common/api-error';
+import { User } from '../users/user.entity';
+
+/** Claims of a Fieldbound access token. */
+export interface AccessTokenClaims {
+  sub: string;
+  email: string;
+  /** The user's tokenVersion when the token was issued. */
+  ver: number;
+}
+
+export const JWT_ISSUER = 'fieldbound';
+export const JWT_AUDIENCE = 'fieldbound-api';
+
+/**
+ * Verifies `Authorization: Bearer <jwt>` (HS256, issuer, audience, expiry) and then checks that the
+ * account still exists and its password has not changed since the token was issued.
+ */
+@Injectable()
+export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
+  constructor(
+    config: ConfigService<AppConfig, true>,
+    private readonly em: EntityManager,
+  ) {
+    super({
+      jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
+      secretOrKey: config.get('jwtSecret', { infer: true }),
+      algorithms: ['HS256'],
+      issuer: JWT_ISSUER,
+      audience: JWT_AUDIENCE,
+      ignoreExpiration: false,
+    });
+  }
+
+  async validate(claims: AccessTokenClaims): Promise<AuthUser> {
+    const user = typeof claims.sub === 'string' ? await this.em.findOne(User, { id: claims.sub }, { fields: ['id', 'email', 'tokenVersion'] }) : null;
+    if (!user) throw new ApiError(401, 'access_token_invalid', 'The account of this access token no longer exists; sign in again.');
+    if (user.tokenVersion !== claims.ver) {
+      throw new ApiError(401, 'access_token_revoked', 'This access token was revoked when the password changed; sign in again.');
+    }
+    return { id: user.id, email: user.email };
+  }
+}

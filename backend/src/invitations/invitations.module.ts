@@ -1,0 +1,12 @@
+import { Module } from '@nestjs/common';
+import { AuthModule } from '../auth/auth.module';
+import { TeamsModule } from '../teams/teams.module';
+import { InvitationLinkController, TeamInvitationsController } from './invitations.controller';
+import { InvitationsService } from './invitations.service';
+
+@Module({
+  imports: [AuthModule, TeamsModule],
+  controllers: [TeamInvitationsController, InvitationLinkController],
+  providers: [InvitationsService],
+})
+export class InvitationsModule {}

@@ -1,0 +1,59 @@
+/**
+ * Serializable interpolation model of one orbital over one map (internal data of the fast map;
+ * plain numbers and typed arrays, so it can be structured-cloned to a worker).
+ *
+ * Coordinates: s = ln B (B in atomic units) and, per level ν,
+ *   u = ln(λ − λ_c,ν(s)),  λ = αB,  λ_c,0 ≡ 0,
+ * with the interpolated quantity G_ν(u, s) = ln ε̃ − 2u, ε̃ = ε/B (nearly constant both in the weak-
+ * coupling limit, where ε̃ ∝ λ², and near a threshold, where ε̃ ∝ (λ − λ_c)²).
+ */
+
+/** One level's tensor Chebyshev interpolant of G over ξ ∈ [−1, 1] (u) × y ∈ [−1, 1] (s). */
+export interface SurfaceModel {
+  nu: number;
+  /** u = uA + shear·s + (ξ + 1)(uB − uA)/2 (shear 1 for the ground state: ξ is then ln α). */
+  shear: 0 | 1;
+  uA: number;
+  uB: number;
+  degU: number;
+  degS: number;
+  /** Chebyshev coefficients c[i·(degS + 1) + k] of G(ξ, y). */
+  coef: Float64Array;
+  /** Estimated largest |G_interp − G| on the surface (≈ relative error of ε). */
+  errG: number;
+  /** Parts of errG: Chebyshev tails in u and in s, discretisation error of the node values. */
+  tailU: number;
+  tailS: number;
+  disc: number;
+}
+
+/** A threshold curve ln λ_c,ν(s) as a Chebyshev series over the excited group's s-range. */
+export interface ThresholdModel {
+  nu: number;
+  deg: number;
+  coef: Float64Array;
+  /** Estimated largest relative error of λ_c,ν (interpolation + discretisation). */
+  relErr: number;
+}
+
+/** Levels interpolated over one s-range [sA, sB]. */
+export interface GroupModel {
+  sA: number;
+  sB: number;
+  surfaces: SurfaceModel[];
+}
+
+export interface OrbitalModel {
+  m: number;
+  /** Ground state over the whole field range. */
+  ground: GroupModel;
+  /** Excited levels ν = 1…, over the fields where ν = 1 exists somewhere in the map (null if none). */
+  excited: GroupModel | null;
+  /** Threshold curves of the excited levels ν = 1…levels (the last one is the first level absent from the map). */
+  thresholds: ThresholdModel[];
+  /** Largest number of levels in any cell of the map (1 + number of excited surfaces). */
+  levels: number;
+  /** Work: node solves and Magnus sweeps spent building the model. */
+  nodeSolves: number;
+  sweeps: number;
+}
