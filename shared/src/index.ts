@@ -9,3 +9,4 @@ export * from './potential/index.js';
 export * from './map/index.js';
 export * from './levels/index.js';
 export * from './version.js';
+export * from './export/index.js';
