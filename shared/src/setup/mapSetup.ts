@@ -183,7 +183,12 @@ export function validateSetup(input: unknown): SetupValidation {
   for (const issue of result.error.issues) {
     const at = issue.path.map(String);
     if (issue.code === 'unrecognized_keys') {
-      for (const key of issue.keys) issues.push({ path: [...at, key].join('.'), message: `unknown field "${key}"` });
+      for (const key of issue.keys) {
+        // An odd key (empty, spaces, dots, very long) is quoted and shortened, so the path is never empty or ambiguous.
+        const shown = key.length > 40 ? `${key.slice(0, 40)}…` : key;
+        const segment = key.length <= 40 && /^[\w$-]+$/.test(key) ? key : JSON.stringify(shown);
+        issues.push({ path: [...at, segment].join('.'), message: `unknown field "${shown}"` });
+      }
     } else {
       issues.push({ path: at.join('.') || '(setup)', message: issue.message });
     }
