@@ -191,8 +191,8 @@ export function mapCsvRowCount(binding: BindingMapResult): number {
 }
 
 /**
- * Estimated size in bytes of the CSV export (header + rows × the mean length of up to 256 sample rows
- * formatted exactly, spread over the map), with the size check against `EXPORT_LIMITS`. Costs one pass
+ * Estimated size in bytes of the CSV export (header + rows × the mean length of the rows of up to 256
+ * cells spread evenly over the map, formatted exactly), with the size check against `EXPORT_LIMITS`. Costs one pass
  * over the counts, not a full format.
  */
 export function estimateMapCsv(input: MapCsvInput, options: MapCsvOptions = {}): ExportSizeCheck & { rows: number } {
@@ -204,17 +204,18 @@ export function estimateMapCsv(input: MapCsvInput, options: MapCsvOptions = {}):
   let sampleRows = 0;
   if (rows > 0) {
     const { binding } = input;
-    // Format a thin copy: every k-th field row, through the generator itself.
-    const stride = Math.max(1, Math.floor(binding.nField / 8));
-    for (let j = 0; j < binding.nField && sampleRows < 256; j += stride) {
-      for (let i = 0; i < binding.nAlpha && sampleRows < 256; i += Math.max(1, Math.floor(binding.nAlpha / 32))) {
-        const cell = j * binding.nAlpha + i;
-        for (let m = 0; m <= binding.mMax; m++) {
-          const n = Math.min(binding.counts[m * binding.cellCount + cell], binding.levelsPerOrbital);
-          for (let nu = 0; nu < n; nu++) {
-            sampleChars += sampleRowLength(input, units, i, j, m, nu);
-            sampleRows++;
-          }
+    // Format every row of up to 256 cells spread evenly over the map (the number lengths vary with α and B).
+    const samples = Math.min(256, binding.cellCount);
+    for (let k = 0; k < samples; k++) {
+      // rows evenly spaced, columns by the golden-ratio sequence (so samples do not line up in one column)
+      const j = Math.floor(((k + 0.5) * binding.nField) / samples);
+      const i = Math.floor((((k * 0.6180339887498949) % 1) + 1e-9) * binding.nAlpha) % binding.nAlpha;
+      const cell = j * binding.nAlpha + i;
+      for (let m = 0; m <= binding.mMax; m++) {
+        const n = Math.min(binding.counts[m * binding.cellCount + cell], binding.levelsPerOrbital);
+        for (let nu = 0; nu < n; nu++) {
+          sampleChars += sampleRowLength(input, units, i, j, m, nu);
+          sampleRows++;
         }
       }
     }
