@@ -10,3 +10,4 @@ export * from './map/index.js';
 export * from './levels/index.js';
 export * from './version.js';
 export * from './export/index.js';
+export * from './methods/index.js';
