@@ -4,7 +4,7 @@ import { canonicalJson, setupFingerprint } from '../setup/fingerprint.js';
 import { parseSetup } from '../setup/mapSetup.js';
 import { crc32 } from './crc32.js';
 import { figureMetadata, figureMetadataFromPngEntries, MODEL_CAVEAT, pngFigureEntries, readSvgFigureMetadata, svgMetadataElement } from './figureMetadata.js';
-import { insertPngTextChunks, PngChunkError, pngTextChunk, readPngTextChunks } from './pngTextChunks.js';
+import { insertPngChunks, insertPngTextChunks, PngChunkError, pngPhysChunk, pngTextChunk, readPngTextChunks } from './pngTextChunks.js';
 import { utf8Encode } from './utf8.js';
 import { xmlEscape, xmlUnescape } from './xmlEscape.js';
 import { base64ToBytes } from './base64.js';
@@ -73,6 +73,19 @@ describe('PNG text chunks', () => {
     const out = insertPngTextChunks(TINY_PNG, [{ keyword: 'Comment', text: 'abc' }]);
     out[33 + 8 + 8] ^= 1; // flip a bit in the text
     expect(readPngTextChunks(out)[0].crcOk).toBe(false);
+  });
+
+  it('a pHYs chunk states 300 dpi as 11 811 pixels per metre, unit metre, with a valid CRC', () => {
+    const c = pngPhysChunk(300);
+    const v = new DataView(c.buffer);
+    expect(v.getUint32(0)).toBe(9);
+    expect(String.fromCharCode(...c.subarray(4, 8))).toBe('pHYs');
+    expect(v.getUint32(8)).toBe(11811);
+    expect(v.getUint32(12)).toBe(11811);
+    expect(c[16]).toBe(1);
+    expect(v.getUint32(17)).toBe(crc32(c, 4, 17));
+    const out = insertPngChunks(TINY_PNG, [c]);
+    expect(out.length).toBe(TINY_PNG.length + 21);
   });
 
   it('refuses bytes that are not a PNG and keywords the format cannot carry', () => {

@@ -47,7 +47,9 @@ function isLatin1(text: string): boolean {
   return /^[\x01-\xff]*$/.test(text);
 }
 
-function chunk(type: string, data: Uint8Array): Uint8Array {
+/** One PNG chunk: length · type · data · CRC-32 of type and data. */
+export function pngChunk(type: string, data: Uint8Array): Uint8Array {
+  if (!/^[A-Za-z]{4}$/.test(type)) throw new PngChunkError(`PNG chunk type must be four ASCII letters, got ${JSON.stringify(type)}`);
   const out = new Uint8Array(12 + data.length);
   const view = new DataView(out.buffer);
   view.setUint32(0, data.length);
@@ -69,7 +71,7 @@ export function pngTextChunk(entry: PngTextEntry, options: { utf8?: boolean } = 
     const data = new Uint8Array(k.length + 1 + t.length);
     data.set(k, 0);
     data.set(t, k.length + 1);
-    return chunk('tEXt', data);
+    return pngChunk('tEXt', data);
   }
   const k = latin1(entry.keyword);
   const t = utf8Encode(entry.text);
@@ -77,7 +79,7 @@ export function pngTextChunk(entry: PngTextEntry, options: { utf8?: boolean } = 
   const data = new Uint8Array(k.length + 5 + t.length);
   data.set(k, 0);
   data.set(t, k.length + 5);
-  return chunk('iTXt', data);
+  return pngChunk('iTXt', data);
 }
 
 /**
@@ -89,13 +91,23 @@ export function pngTextChunk(entry: PngTextEntry, options: { utf8?: boolean } = 
  * insertPngTextChunks(png, [{ keyword: 'Software', text: 'Fieldbound 0.1.0' }])
  */
 export function insertPngTextChunks(png: Uint8Array, entries: readonly PngTextEntry[], options: { utf8?: boolean } = {}): Uint8Array {
+  return insertPngChunks(
+    png,
+    entries.map((e) => pngTextChunk(e, options)),
+  );
+}
+
+/**
+ * A copy of `png` with whole chunks (from `pngChunk`) inserted right after IHDR. Throws `PngChunkError`
+ * when `png` is not a PNG whose first chunk is IHDR.
+ */
+export function insertPngChunks(png: Uint8Array, chunks: readonly Uint8Array[]): Uint8Array {
   checkSignature(png);
   const view = new DataView(png.buffer, png.byteOffset, png.byteLength);
   const ihdrLength = view.getUint32(8);
   const type = String.fromCharCode(png[12], png[13], png[14], png[15]);
   if (type !== 'IHDR') throw new PngChunkError(`PNG: first chunk is ${JSON.stringify(type)}, expected IHDR`);
   const afterIhdr = 8 + 12 + ihdrLength;
-  const chunks = entries.map((e) => pngTextChunk(e, options));
   const extra = chunks.reduce((s, c) => s + c.length, 0);
   const out = new Uint8Array(png.length + extra);
   out.set(png.subarray(0, afterIhdr), 0);
@@ -106,6 +118,24 @@ export function insertPngTextChunks(png: Uint8Array, entries: readonly PngTextEn
   }
   out.set(png.subarray(afterIhdr), at);
   return out;
+}
+
+/**
+ * The `pHYs` chunk stating the resolution (PNG specification §11.3.5.3): pixels per metre in x and y,
+ * unit metre. `dpi` is converted with 1 inch = 0.0254 m and rounded.
+ *
+ * @example
+ * pngPhysChunk(300) // 11 813 pixels per metre
+ */
+export function pngPhysChunk(dpi: number): Uint8Array {
+  if (!(dpi > 0) || !Number.isFinite(dpi)) throw new PngChunkError(`resolution must be a positive number of dots per inch, got ${dpi}`);
+  const ppm = Math.round(dpi / 0.0254);
+  const data = new Uint8Array(9);
+  const v = new DataView(data.buffer);
+  v.setUint32(0, ppm);
+  v.setUint32(4, ppm);
+  data[8] = 1;
+  return pngChunk('pHYs', data);
 }
 
 /** One chunk as read back: its type and whether its CRC matched. */
