@@ -1,11 +1,9 @@
-import { useParams } from 'react-router-dom';
-import { EmptyPage } from '../components/EmptyPage';
+import { ExplorerPage } from '../features/explorer/ExplorerPage';
 
+/**
+ * A map: the explorer. Loading and saving the map's setup on the server plug into ExplorerPage's
+ * `initialSetup` and `onSaveSetup` (saved maps are a separate feature); until then it opens the default setup.
+ */
 export function MapPage() {
-  const { mapId } = useParams();
-  return (
-    <EmptyPage title="Map">
-      Map <code>{mapId}</code> opens here: the setup on the left, the polarizability–field map in the middle, the probe on the right.
-    </EmptyPage>
-  );
+  return <ExplorerPage />;
 }

@@ -4,14 +4,13 @@ import type { ContourWorkerApi } from './contour.worker';
 import { MapComputeError } from './engineContract';
 
 /**
- * One contour worker, used latest-wins: a newer request makes older pending ones resolve to null. A crashed
- * worker is replaced and the request fails with a MapComputeError.
+ * One contour worker serving every layer of a page (requests run in order). A crashed worker is replaced and
+ * the requests in flight fail with a MapComputeError. Callers drop answers they no longer need.
  */
 export class ContourClient {
   private worker: Worker;
   private api: Remote<ContourWorkerApi>;
-  private generation = 0;
-  private crash: ((e: MapComputeError) => void) | null = null;
+  private readonly crashHandlers = new Set<(e: MapComputeError) => void>();
 
   constructor(private readonly createWorker: () => Worker) {
     [this.worker, this.api] = this.spawn();
@@ -23,20 +22,24 @@ export class ContourClient {
       const message = event instanceof ErrorEvent && event.message ? `: ${event.message}` : '';
       this.worker.terminate();
       [this.worker, this.api] = this.spawn();
-      this.crash?.(new MapComputeError('crash', `Drawing the map failed${message}.`));
+      const error = new MapComputeError('crash', `Drawing the map failed${message}.`);
+      for (const handler of [...this.crashHandlers]) handler(error);
     });
     return [worker, wrap<ContourWorkerApi>(worker)];
   }
 
-  /** Geometry of the fields, or null when a newer request superseded this one. The fields' buffers are transferred. */
-  async geometry(fields: MapFields): Promise<MapGeometry | null> {
-    const mine = ++this.generation;
+  /** Geometry of the fields. The fields' buffers are transferred (the caller must not use them afterwards). */
+  async geometry(fields: MapFields): Promise<MapGeometry> {
+    let handler: ((e: MapComputeError) => void) | undefined;
     const crashed = new Promise<never>((_, reject) => {
-      this.crash = reject;
+      handler = reject;
+      this.crashHandlers.add(reject);
     });
-    crashed.catch(() => {}); // settled through the race below; never an unhandled rejection
-    const result = await Promise.race([this.api.geometry(transfer(fields, [fields.region.buffer as ArrayBuffer, fields.energy.buffer as ArrayBuffer])), crashed]);
-    return mine === this.generation ? result : null;
+    try {
+      return await Promise.race([this.api.geometry(transfer(fields, [fields.region.buffer as ArrayBuffer, fields.energy.buffer as ArrayBuffer])), crashed]);
+    } finally {
+      if (handler) this.crashHandlers.delete(handler);
+    }
   }
 
   dispose(): void {

@@ -1,0 +1,218 @@
+import { useCallback, useEffect, useMemo, useRef, useState, type CSSProperties } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { Button, Drawer, Select, Space, Tooltip, Typography } from 'antd';
+import { CompressOutlined, MenuFoldOutlined, MenuUnfoldOutlined } from '@ant-design/icons';
+import { defaultSetup, teslaToAtomic, validateSetup, type MapSetup, type Tesla } from '@fieldbound/shared';
+import { palette } from '../../theme/palette';
+import { ENERGY_UNIT_LABEL } from '../map-render/displayUnits';
+import type { ShownQuantity } from '../map-render/regionField';
+import { ContourClient } from '../../workers/contourClient';
+import { createContourWorker, createEngineWorker } from '../../workers/createWorkers';
+import { EnginePool, defaultPoolSize } from '../../workers/enginePool';
+import { ComputeStatus } from './ComputeStatus';
+import { MapLegend } from './MapLegend';
+import { MapView, gridAxesOf, type MapLayerInput, type SpeciesMarker } from './MapView';
+import { ProbePanel } from './ProbePanel';
+import { SetupPanel } from './SetupPanel';
+import { ResultCache, useMapComputation } from './hooks/useMapComputation';
+import { useLayerGeometry } from './hooks/useLayerGeometry';
+import { readoutAt } from './mapReadout';
+import { checkDraft, type SetupDraft } from './setupDraft';
+import { parseViewParams, sameWindow, setupWindow, windowSetup, writeViewParams, type ProbePoint, type ViewWindow } from './viewState';
+
+export interface ExplorerPageProps {
+  /** The setup to open with (a saved map's); a new map starts from `defaultSetup()`. */
+  initialSetup?: MapSetup;
+  /** Seam for saving (the saved-maps feature): called with the current valid setup. */
+  onSaveSetup?: (setup: MapSetup) => void;
+  saveLabel?: string;
+  /** Atoms the overlay can show, looked up by the setup's species names (the species catalogue plugs in here). */
+  speciesCatalogue?: readonly SpeciesMarker[];
+  /** Worker constructors (tests pass fakes; the app uses the real module workers). */
+  createEngineWorker?: () => Worker;
+  createContourWorker?: () => Worker;
+  /** Longest a map pass may run before it is stopped with a message. Default 10 minutes. */
+  timeoutMs?: number;
+  style?: CSSProperties;
+}
+
+const NO_SPECIES: readonly SpeciesMarker[] = [];
+
+/** Applies the URL's shown orbital to a setup when it is valid there. */
+function withShown(setup: MapSetup, shown: ShownQuantity | null): MapSetup {
+  if (!shown) return setup;
+  const next = { ...setup, display: { ...setup.display, shown } };
+  return validateSetup(next).ok ? next : setup;
+}
+
+/**
+ * The map explorer: the setup on the left, the map filling the page, the probe in a drawer on the right.
+ * All engine work runs in workers; the URL keeps the zoom window, the shown orbital and the probe point.
+ */
+export function ExplorerPage({
+  initialSetup,
+  onSaveSetup,
+  saveLabel,
+  speciesCatalogue = NO_SPECIES,
+  createEngineWorker: makeEngineWorker = createEngineWorker,
+  createContourWorker: makeContourWorker = createContourWorker,
+  timeoutMs = 600_000,
+  style,
+}: ExplorerPageProps) {
+  const [params, setParams] = useSearchParams();
+  const fromUrl = useMemo(() => parseViewParams(params), []); // read once, when the page opens
+  const [applied, setApplied] = useState<MapSetup>(() => withShown(initialSetup ?? defaultSetup(), fromUrl.shown));
+  const [draft, setDraft] = useState<SetupDraft>(applied);
+  const [view, setView] = useState<ViewWindow>(() => fromUrl.view ?? setupWindow(applied));
+  const [probe, setProbe] = useState<ProbePoint | null>(fromUrl.probe);
+  const [panelOpen, setPanelOpen] = useState(true);
+
+  // Workers: a pool for maps, one engine worker for the probe (never queued behind a map), one for contours.
+  const [workers, setWorkers] = useState<{ maps: EnginePool; probe: EnginePool; contours: ContourClient } | null>(null);
+  useEffect(() => {
+    const w = {
+      maps: new EnginePool({ createWorker: makeEngineWorker, size: defaultPoolSize(navigator.hardwareConcurrency) }),
+      probe: new EnginePool({ createWorker: makeEngineWorker, size: 1 }),
+      contours: new ContourClient(makeContourWorker),
+    };
+    setWorkers(w);
+    return () => {
+      w.maps.dispose();
+      w.probe.dispose();
+      w.contours.dispose();
+    };
+  }, [makeEngineWorker, makeContourWorker]);
+
+  const cache = useRef(new ResultCache()).current;
+  const computeOptions = useMemo(() => ({ timeoutMs }), [timeoutMs]);
+  const base = useMapComputation(workers?.maps ?? null, applied, cache, computeOptions);
+  const zoomed = useMemo(() => (sameWindow(view, setupWindow(applied)) ? null : windowSetup(applied, view)), [view, applied]);
+  const windowComp = useMapComputation(workers?.maps ?? null, zoomed, cache, computeOptions);
+
+  const shown = applied.display.shown;
+  const levels = applied.contours.levelsKelvin;
+  const baseGeometry = useLayerGeometry(workers?.contours ?? null, base.state.result, null, shown, levels);
+  const windowGeometry = useLayerGeometry(workers?.contours ?? null, zoomed ? windowComp.state.result : null, null, shown, levels);
+
+  const layers = useMemo(() => {
+    const out: MapLayerInput[] = [];
+    const add = (key: string, g: typeof baseGeometry, resultSetup: MapSetup | null) => {
+      if (g.geometry && g.forResult && resultSetup && g.forResult.nAlpha === resultSetup.grid.nAlpha && g.forResult.nField === resultSetup.grid.nField) {
+        out.push({ key, result: g.forResult, setup: resultSetup, geometry: g.geometry });
+      }
+    };
+    add('base', baseGeometry, base.state.result === baseGeometry.forResult ? base.state.resultSetup : null);
+    if (zoomed) add('window', windowGeometry, windowComp.state.result === windowGeometry.forResult ? windowComp.state.resultSetup : null);
+    return out;
+  }, [baseGeometry, windowGeometry, base.state.result, base.state.resultSetup, windowComp.state.result, windowComp.state.resultSetup, zoomed]);
+
+  // Keep the view state in the URL (replace, so the back button leaves the page rather than stepping zooms).
+  useEffect(() => {
+    const next = writeViewParams(params, { view: sameWindow(view, setupWindow(applied)) ? null : view, shown, probe });
+    if (next.toString() !== params.toString()) setParams(next, { replace: true });
+  }, [view, shown, probe, applied, params, setParams]);
+
+  const check = useMemo(() => checkDraft(draft, applied), [draft, applied]);
+  const onDraftChange = useCallback(
+    (d: SetupDraft) => {
+      setDraft(d);
+      const c = checkDraft(d, applied);
+      // Display, contours, motion and observation time apply at once: they never recompute binding energies.
+      if (c.valid && !c.needsCompute) setApplied(c.valid);
+    },
+    [applied],
+  );
+  const onCompute = useCallback(() => {
+    if (!check.valid) return;
+    const axesChanged = check.valid.alphaAxis.min !== applied.alphaAxis.min || check.valid.alphaAxis.max !== applied.alphaAxis.max || check.valid.fieldAxis.min !== applied.fieldAxis.min || check.valid.fieldAxis.max !== applied.fieldAxis.max || check.valid.alphaAxis.scale !== applied.alphaAxis.scale || check.valid.fieldAxis.scale !== applied.fieldAxis.scale;
+    setApplied(check.valid);
+    if (axesChanged) setView(setupWindow(check.valid));
+  }, [check.valid, applied]);
+
+  const setShown = useCallback(
+    (s: ShownQuantity) => {
+      const next = { ...applied, display: { ...applied.display, shown: s } };
+      setApplied(next);
+      setDraft((d) => ({ ...d, display: { ...d.display, shown: s } }));
+    },
+    [applied],
+  );
+
+  const readout = useCallback(
+    (alphaAu: number, tesla: number) => {
+      const fieldAu = teslaToAtomic(tesla as Tesla) as number;
+      for (const layer of [...layers].reverse()) {
+        const axes = gridAxesOf(layer.result, layer.setup);
+        const text = readoutAt(layer.result, axes.alpha, axes.field, alphaAu, fieldAu, shown, applied.display.energyUnit);
+        if (text) return text;
+      }
+      return null;
+    },
+    [layers, shown, applied.display.energyUnit],
+  );
+
+  const species = useMemo(() => speciesCatalogue.filter((s) => applied.species.includes(s.name)), [speciesCatalogue, applied.species]);
+  const maxCount = layers.length ? Math.max(...layers.map((l) => l.geometry.maxCount)) : 0;
+  const activeComp = zoomed && windowComp.state.status !== 'idle' && windowComp.state.status !== 'done' ? windowComp : base;
+  const geometryError = baseGeometry.error ?? windowGeometry.error;
+  const fullTiming = base.state.timings;
+
+  return (
+    <div className="explorer-page" style={{ display: 'flex', height: 'calc(100vh - 48px)', minHeight: 420, background: palette.paper, ...style }}>
+      {panelOpen && (
+        <aside aria-label="Setup" style={{ width: 320, flex: 'none', overflowY: 'auto', padding: '8px 14px 24px', borderRight: `1px solid ${palette.unbound}`, background: '#fff' }}>
+          <Space style={{ justifyContent: 'space-between', width: '100%' }}>
+            <Typography.Title level={5} style={{ margin: '4px 0' }}>
+              Setup
+            </Typography.Title>
+            <Tooltip title="Hide the setup">
+              <Button type="text" size="small" aria-label="Hide the setup" icon={<MenuFoldOutlined />} onClick={() => setPanelOpen(false)} />
+            </Tooltip>
+          </Space>
+          <SetupPanel draft={draft} issues={check.issues} onChange={onDraftChange} onCompute={onCompute} needsCompute={check.needsCompute} onSave={onSaveSetup && check.valid ? () => onSaveSetup(check.valid!) : undefined} saveLabel={saveLabel} />
+        </aside>
+      )}
+      <main style={{ flex: 1, minWidth: 0, display: 'flex', flexDirection: 'column' }}>
+        <div style={{ display: 'flex', alignItems: 'center', gap: 12, padding: '6px 12px', borderBottom: `1px solid ${palette.unbound}`, background: '#fff', flexWrap: 'wrap' }}>
+          {!panelOpen && (
+            <Tooltip title="Show the setup">
+              <Button size="small" aria-label="Show the setup" icon={<MenuUnfoldOutlined />} onClick={() => setPanelOpen(true)} />
+            </Tooltip>
+          )}
+          <Select
+            size="small"
+            aria-label="Regions show"
+            value={shown.kind === 'survivors' ? 'survivors' : `m${shown.m}`}
+            onChange={(v: string) => setShown(v === 'survivors' ? { kind: 'survivors' } : { kind: 'orbital', m: Number(v.slice(1)) })}
+            options={[...Array.from({ length: applied.orbitals.mMax + 1 }, (_, m) => ({ value: `m${m}`, label: `Orbital m = ${m}` })), { value: 'survivors', label: 'Survivors' }]}
+            style={{ width: 150 }}
+          />
+          <Button size="small" icon={<CompressOutlined />} disabled={!zoomed} onClick={() => setView(setupWindow(applied))}>
+            Show the whole map
+          </Button>
+          <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+            {applied.grid.nAlpha} × {applied.grid.nField} grid · orbitals m = 0…{applied.orbitals.mMax} · energies in {ENERGY_UNIT_LABEL[applied.display.energyUnit]}
+            {fullTiming.fullMs !== null ? ` · computed in ${(fullTiming.fullMs / 1000).toFixed(1)} s` : ''}
+            {base.state.resultPass === 'coarse' ? ' · showing the quick first pass' : ''}
+          </Typography.Text>
+        </div>
+        <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={setProbe} species={species}>
+          <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={false} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} />
+          <div style={{ position: 'absolute', top: 12, left: '50%', transform: 'translateX(-50%)', display: 'flex', flexDirection: 'column', gap: 8, alignItems: 'center' }}>
+            <ComputeStatus state={activeComp.state} onCancel={activeComp.cancel} onRetry={activeComp.retry} what={activeComp === base ? 'the map' : 'the zoomed window'} />
+            {geometryError && <ComputeStatus state={{ ...base.state, status: 'error', error: geometryError }} onCancel={() => {}} onRetry={base.retry} what="the contours" />}
+          </div>
+        </MapView>
+        <footer style={{ padding: '4px 12px', fontSize: 11.5, color: '#5b5d70', borderTop: `1px solid ${palette.unbound}`, background: '#fff' }}>
+          Model estimate: an electron bound to a fixed polarizable atom in the adiabatic single-orbital approximation (one lowest-Landau-level orbital m at a time). Flags mark where it is doubtful: <b>cutoff-dominated</b> (m = 0 depends on the cutoff radius), <b>non-adiabatic</b> (ε/B &gt; 0.1). Binding weaker than the energy floor counts as unbound.
+          {applied.motion.kind !== 'none' ? ' Ion motion is not applied to this map yet: regions show the fixed atom.' : ''}
+        </footer>
+      </main>
+      <Drawer title="Probe" placement="right" size={420} open={probe !== null} onClose={() => setProbe(null)} mask={false} destroyOnHidden>
+        {probe && <ProbePanel point={probe} setup={applied} pool={workers?.probe ?? null} />}
+      </Drawer>
+    </div>
+  );
+}
+
+export default ExplorerPage;
