@@ -3,6 +3,7 @@ import { NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import helmet from 'helmet';
 import { AppModule } from './app.module';
+import { DatabaseUnavailableFilter } from './common/database-unavailable.filter';
 import type { Clock } from './common/clock';
 import { createValidationPipe } from './common/validation';
 import { loadConfig, type AppConfig } from './config/configuration';
@@ -25,6 +26,9 @@ export async function createApp(options: CreateAppOptions = {}): Promise<INestAp
   app.set('trust proxy', 'loopback');
   // whitelist + forbidNonWhitelisted + transform; 400s list messages per field (src/common/validation.ts).
   app.useGlobalPipes(createValidationPipe());
+  // 503 instead of 500 while the database is unreachable. It matches only connection failures, so
+  // other global filters keep every other error whatever the registration order (common/database-unavailable.filter.ts).
+  app.useGlobalFilters(new DatabaseUnavailableFilter());
   app.enableShutdownHooks();
   return app;
 }
