@@ -28,29 +28,31 @@ export interface BuildSettings {
   degS0: number;
   degMax: number;
   degThresholdMax: number;
+  degThreshold0: number;
   /** Lower end of the excited u-range: λ − λ_c ≥ nearThreshold·λ_c. */
   nearThreshold: number;
-  /** Ground state: 'sheared' interpolates in (ln α, ln B); 'panels' in (ln λ, ln B) split into groundPanels u-panels. */
-  groundMode: 'sheared' | 'panels';
-  groundPanels: number;
-  /** Excited levels: split the u-range at ln(excitedSplit·λ_c) (0: no split). */
-  excitedSplit: number;
 }
 
 export const DEFAULT_BUILD: BuildSettings = {
   tolG: 3e-7,
-  tolThreshold: 1e-13,
-  meshTolGround: 1e-8,
+  tolThreshold: 1e-12,
+  meshTolGround: 1e-7,
   meshTolExcited: 1e-10,
-  degU0: 16,
-  degS0: 8,
-  degMax: 64,
-  degThresholdMax: 128,
-  nearThreshold: 1e-6,
-  groundMode: 'sheared',
-  groundPanels: 1,
-  excitedSplit: 0,
+  degU0: 12,
+  degS0: 6,
+  degMax: 96,
+  degThresholdMax: 96,
+  degThreshold0: 12,
+  nearThreshold: 1e-4,
 };
+
+interface Spec {
+  nu: number;
+  uA: number;
+  shA: number;
+  uB: number;
+  shB: number;
+}
 
 interface Row {
   s: number;
@@ -114,14 +116,7 @@ export function buildOrbitalModel(
   const uA0 = geo.lnAlphaMin;
   const uB0 = geo.lnAlphaMax;
   const makeGroundRow = (s: number): Row => ({ s, solver: newSolver(s, lamMax(s) * (1 + 1e-9), settings.meshTolGround), thr: [0] });
-  const groundSpecs: { nu: number; shear: 0 | 1; uA: number; uB: number }[] = [];
-  if (settings.groundMode === 'sheared') groundSpecs.push({ nu: 0, shear: 1, uA: uA0, uB: uB0 });
-  else {
-    const lo = uA0 + sA0;
-    const hi = uB0 + sB0;
-    const P = settings.groundPanels;
-    for (let p = 0; p < P; p++) groundSpecs.push({ nu: 0, shear: 0, uA: lo + ((hi - lo) * p) / P, uB: lo + ((hi - lo) * (p + 1)) / P });
-  }
+  const groundSpecs: Spec[] = [{ nu: 0, uA: uA0, shA: 1, uB: uB0, shB: 1 }];
   const groundSurface = buildGroup(
     groundSpecs,
     sA0,
@@ -194,7 +189,7 @@ export function buildOrbitalModel(
         continue;
       }
       // u-ranges of the excited surfaces
-      const specs: { nu: number; shear: 0 | 1; uA: number; uB: number }[] = [];
+      const specs: Spec[] = [];
       for (let nu = 1; nu <= K; nu++) {
         const tm = thrCurves.models[nu - 1];
         let uHi = -Infinity;
@@ -209,11 +204,8 @@ export function buildOrbitalModel(
         for (const r of thrCurves.rows) lnLcMin = Math.min(lnLcMin, Math.log(r.thr[nu]));
         if (uHi === -Infinity) break; // ν and above never appear in a map row
         const uLo = lnLcMin + Math.log(settings.nearThreshold);
-        const lo = Math.min(uLo, uHi - 1);
-        const split = lnLcMin + Math.log(settings.excitedSplit);
-        if (settings.excitedSplit > 0 && split > lo + 1 && split < uHi - 1) {
-          specs.push({ nu, shear: 0, uA: lo, uB: split }, { nu, shear: 0, uA: split, uB: uHi });
-        } else specs.push({ nu, shear: 0, uA: lo, uB: uHi });
+        // rows from u = ln(1e-6·λ_c) up to u = ln λ_max(B) (≥ every map cell of the row)
+        specs.push({ nu, uA: Math.min(uLo, Math.log(lamMax(sE)) - 1), shA: 0, uB: geo.lnAlphaMax, shB: 1 });
       }
       const group = buildGroup(specs, sE, sB, null, thrCurves.rows);
       excited = { sA: sE, sB, surfaces: group.surfaces };
@@ -239,35 +231,48 @@ export function buildOrbitalModel(
 
   /** Threshold curves ν = 1…nuTop over [sA, sB] on nested Lobatto rows, refined to tolThreshold. */
   function buildThresholds(sA: number, sB: number, nuTop: number, lamRef: number): { rows: Row[]; models: ThresholdModel[] } {
-    let deg = 16;
+    let deg = settings.degThreshold0;
     let rows: Row[] | null = null;
     for (;;) {
       throwIfAborted(signal);
       const prev: Row[] | null = rows;
       rows = nestedRows(prev, deg, sA, sB, (s, k, cur) => {
-        const solver = newSolver(s, lamRef, settings.meshTolExcited);
-        const thr: number[] = [0];
         // prediction: neighbour rows (already built at k − 1, or old rows at k ± 1)
         const left = cur[k - 1];
         const right = k + 1 < cur.length ? cur[k + 1] : undefined;
-        for (let nu = 1; nu <= nuTop; nu++) {
-          let guess: number;
-          let spread: number;
-          const lv = left?.thr[nu];
-          const rv = right?.thr[nu];
-          if (lv !== undefined && rv !== undefined && Number.isFinite(lv) && Number.isFinite(rv)) {
-            guess = 0.5 * (Math.log(lv) + Math.log(rv));
-            spread = Math.abs(Math.log(rv) - Math.log(lv)) * 0.5 + 1e-9;
-          } else if (lv !== undefined && Number.isFinite(lv)) {
-            guess = Math.log(lv);
-            spread = 0.05;
-          } else {
-            guess = nu > 1 && Number.isFinite(thr[nu - 1]) ? Math.log(thr[nu - 1]) + 0.5 : Math.log(lamRef / 2);
-            spread = 0.5;
-          }
-          thr.push(solver.threshold(nu, guess, spread));
+        // The row's mesh must serve λ up to max_ν λ_c,ν + λ_max(B) (the surfaces' largest λ):
+        // start from the neighbours' thresholds and rebuild once if the row needs more.
+        let need = 2 * lamMax(s);
+        for (const nb of [left, right]) {
+          if (nb === undefined) continue;
+          for (let nu = 1; nu < nuTop; nu++) if (Number.isFinite(nb.thr[nu])) need = Math.max(need, 1.2 * nb.thr[nu] + lamMax(s));
         }
-        return { s, solver, thr };
+        let lamRefRow = Math.min(need, lamRef);
+        for (let attempt = 0; ; attempt++) {
+          const solver = newSolver(s, lamRefRow, settings.meshTolExcited);
+          const thr: number[] = [0];
+          for (let nu = 1; nu <= nuTop; nu++) {
+            let guess: number;
+            let spread: number;
+            const lv = left?.thr[nu];
+            const rv = right?.thr[nu];
+            if (lv !== undefined && rv !== undefined && Number.isFinite(lv) && Number.isFinite(rv)) {
+              guess = 0.5 * (Math.log(lv) + Math.log(rv));
+              spread = Math.abs(Math.log(rv) - Math.log(lv)) * 0.5 + 1e-9;
+            } else if (lv !== undefined && Number.isFinite(lv)) {
+              guess = Math.log(lv);
+              spread = 0.05;
+            } else {
+              guess = nu > 1 && Number.isFinite(thr[nu - 1]) ? Math.log(thr[nu - 1]) + 0.5 : Math.log(lamMax(s));
+              spread = 0.5;
+            }
+            thr.push(solver.threshold(nu, guess, spread));
+          }
+          let needed = lamMax(s);
+          for (let nu = 1; nu < nuTop; nu++) needed = Math.max(needed, thr[nu] + lamMax(s));
+          if (needed <= lamRefRow * 1.0001 || attempt >= 4 || lamRefRow >= lamRef) return { s, solver, thr };
+          lamRefRow = Math.min(lamRef, Number.isFinite(needed) ? needed * 1.1 : lamRefRow * 4);
+        }
       });
       // interpolants of ln λ_c; finite everywhere?
       const models: ThresholdModel[] = [];
@@ -314,55 +319,63 @@ export function buildOrbitalModel(
   }
 
   /**
-   * Surfaces G_ν for the given levels over [sA, sB]. Rows come either from `makeRow` (nested Lobatto
-   * rows of the surface degree) or from `thrRows` (the threshold rows, of which the surface uses
-   * every (T/degS)-th).
+   * Surfaces G_ν for the given levels over [sA, sB]. Each level has its own degrees (degU, degS);
+   * the group's rows are the Lobatto rows of the largest s-degree, either made by `makeRow` (nested
+   * doubling) or taken from the threshold rows `thrRows` (a level of s-degree S uses every
+   * (T/S)-th of them). Refinement: double degU while the u-tail exceeds tolG/2, double degS while
+   * the s-tail does; new nodes are predicted from the current interpolant.
    */
   function buildGroup(
-    specs: { nu: number; shear: 0 | 1; uA: number; uB: number }[],
+    specs: Spec[],
     sA: number,
     sB: number,
     makeRow: ((s: number) => Row) | null,
     thrRows: Row[] | null,
   ): { surfaces: SurfaceModel[]; rows: Row[] } {
-    let degS = settings.degS0;
-    if (thrRows !== null) degS = Math.min(degS, thrRows.length - 1);
-    let rows: Row[] = [];
-    const rowsFor = (deg: number, old: Row[] | null): Row[] => {
-      if (thrRows !== null) {
-        const T = thrRows.length - 1;
-        const step = T / deg;
-        const out: Row[] = [];
-        for (let k = 0; k <= deg; k++) out.push(thrRows[k * step]);
-        return out;
+    const sMaxDeg = thrRows !== null ? thrRows.length - 1 : settings.degMax;
+    let groupRows: Row[] = thrRows ?? nestedRows(null, Math.min(settings.degS0, sMaxDeg), sA, sB, (s) => makeRow!(s));
+    const rowsOf = (deg: number): Row[] => {
+      let R = groupRows.length - 1;
+      if (thrRows === null) {
+        while (R < deg) {
+          groupRows = nestedRows(groupRows, 2 * R, sA, sB, (s) => makeRow!(s));
+          R *= 2;
+        }
       }
-      return nestedRows(old, deg, sA, sB, (s) => makeRow!(s));
+      const step = R / deg;
+      const out: Row[] = [];
+      for (let k = 0; k <= deg; k++) out.push(groupRows[k * step]);
+      return out;
     };
-    rows = rowsFor(degS, null);
     const degU = specs.map(() => settings.degU0);
-    const values: Float64Array[] = specs.map((_, q) => new Float64Array((degU[q] + 1) * (degS + 1)).fill(NaN));
+    const degS = specs.map(() => Math.min(settings.degS0, sMaxDeg));
+    const values: Float64Array[] = specs.map((_, q) => new Float64Array((degU[q] + 1) * (degS[q] + 1)).fill(NaN));
     const coefs: Float64Array[] = specs.map(() => new Float64Array(0));
     const tails: { u: number; s: number }[] = specs.map(() => ({ u: Infinity, s: Infinity }));
 
     const uOf = (q: number, xi: number, s: number): number => {
       const sp = specs[q];
-      return sp.uA + sp.shear * s + ((xi + 1) / 2) * (sp.uB - sp.uA);
+      const lo = sp.uA + sp.shA * s;
+      return lo + ((xi + 1) / 2) * (sp.uB + sp.shB * s - lo);
     };
     const solveNode = (q: number, row: Row, xi: number, guessG: number, spread: number): number => {
       const nu = specs[q].nu;
       const u = uOf(q, xi, row.s);
       const lambda = (nu === 0 ? 0 : row.thr[nu]) + Math.exp(u);
       nodeSolves++;
-      const lnEps = row.solver.lnLevel(lambda, nu, guessG + 2 * u, spread, LN_TINY);
+      // the slope of the matching function at this row's previous root is a good Newton hint
+      const lnEps = row.solver.lnLevel(lambda, nu, guessG + 2 * u, spread, LN_TINY, spread < 1e-3 ? row.solver.lastSlope : NaN);
       return lnEps - 2 * u;
     };
     // initial grid: row by row, node by node, each predicted from its neighbours
     const fillInitial = (q: number): void => {
       const U = degU[q];
+      const S = degS[q];
+      const rows = rowsOf(S);
       const xs = lobattoNodes(U);
       const v = values[q];
-      const W = degS + 1;
-      for (let k = 0; k <= degS; k++) {
+      const W = S + 1;
+      for (let k = 0; k <= S; k++) {
         throwIfAborted(signal);
         for (let i = 0; i <= U; i++) {
           let guess: number;
@@ -380,7 +393,7 @@ export function buildOrbitalModel(
             guess = v[0];
             spread = 1;
           } else {
-            // cold start: weak coupling, ε̃ ≈ (λ ∫w)²/2 ~ λ²·(depth scale); a wide bracket
+            // cold start: a wide bracket around the depth scale
             guess = Math.log(rows[k].solver.depthPerLambda);
             spread = 4;
           }
@@ -388,80 +401,105 @@ export function buildOrbitalModel(
         }
       }
     };
-    specs.forEach((_, q) => fillInitial(q));
-
     const refreshCoefs = (q: number): void => {
-      coefs[q] = chebCoefficients2d(values[q], degU[q], degS);
-      tails[q] = coefficientTails(coefs[q], degU[q], degS);
+      coefs[q] = chebCoefficients2d(values[q], degU[q], degS[q]);
+      tails[q] = coefficientTails(coefs[q], degU[q], degS[q]);
     };
-    for (;;) {
-      throwIfAborted(signal);
-      // refine each level in u
-      for (let q = 0; q < specs.length; q++) {
-        refreshCoefs(q);
-        while (tails[q].u > settings.tolG / 2 && degU[q] < settings.degMax) {
-          throwIfAborted(signal);
-          const U = degU[q];
-          const W = degS + 1;
-          const old = values[q];
-          const nv = new Float64Array((2 * U + 1) * W);
-          for (let i = 0; i <= U; i++) for (let k = 0; k < W; k++) nv[2 * i * W + k] = old[i * W + k];
-          const xs = lobattoNodes(2 * U);
-          const rowCoef = new Float64Array(U + 1);
-          const ct = cosTable(U);
-          const spread = Math.max(1e-9, Math.min(1, 4 * tails[q].u));
-          for (let k = 0; k < W; k++) {
-            chebCoefficients(old, U, k, W, rowCoef, 0, 1, ct);
-            for (let i = 1; i < 2 * U; i += 2) {
-              const guess = clenshaw(rowCoef, U, 0, 1, xs[i]);
-              nv[i * W + k] = solveNode(q, rows[k], xs[i], guess, spread);
-            }
-          }
-          values[q] = nv;
-          degU[q] = 2 * U;
-          refreshCoefs(q);
-        }
+    /**
+     * Raise the u-degree to n: nested (every old node reused) when n = 2U, otherwise a fresh grid
+     * whose nodes are predicted from the current interpolant (accurate to about its tail).
+     */
+    const refineU = (q: number, n: number): void => {
+      const U = degU[q];
+      const S = degS[q];
+      const rows = rowsOf(S);
+      const W = S + 1;
+      const old = values[q];
+      const nested = n === 2 * U;
+      const nv = new Float64Array((n + 1) * W);
+      if (nested) for (let i = 0; i <= U; i++) for (let k = 0; k < W; k++) nv[2 * i * W + k] = old[i * W + k];
+      const xs = lobattoNodes(n);
+      const rowCoef = new Float64Array(U + 1);
+      const ct = cosTable(U);
+      const spread = Math.max(1e-9, Math.min(1, 4 * tails[q].u));
+      for (let k = 0; k < W; k++) {
+        throwIfAborted(signal);
+        chebCoefficients(old, U, k, W, rowCoef, 0, 1, ct);
+        for (let i = nested ? 1 : 0; i <= n; i += nested ? 2 : 1) nv[i * W + k] = solveNode(q, rows[k], xs[i], clenshaw(rowCoef, U, 0, 1, xs[i]), spread);
       }
-      // refine all levels in s together (rows are shared)
-      const needS = tails.some((t) => t.s > settings.tolG / 2);
-      const canS = thrRows !== null ? 2 * degS <= thrRows.length - 1 && 2 * degS <= settings.degMax : 2 * degS <= settings.degMax;
-      if (!needS || !canS) break;
-      const S = degS;
-      const newRows = rowsFor(2 * S, rows);
+      values[q] = nv;
+      degU[q] = n;
+    };
+    /**
+     * u-degree predicted to bring the tail below tolG/2: the decay rate of the largest coefficient per
+     * u-degree over the upper half of the current spectrum, extrapolated (rounded up to a multiple
+     * of 4, at least U + 4, at most 2U, and 2U — nested — when within 20 % of it).
+     */
+    const predictDegU = (q: number): number => {
+      const U = degU[q];
+      const W = degS[q] + 1;
+      const c = coefs[q];
+      let sx = 0, sy = 0, sxx = 0, sxy = 0, cnt = 0;
+      for (let j = Math.floor(U / 2); j <= U; j++) {
+        let a = 0;
+        for (let k = 0; k < W; k++) a = Math.max(a, Math.abs(c[j * W + k]));
+        const y = Math.log(Math.max(a, 1e-300));
+        sx += j; sy += y; sxx += j * j; sxy += j * y; cnt++;
+      }
+      const beta = -(cnt * sxy - sx * sy) / (cnt * sxx - sx * sx);
+      if (!(beta > 0.05)) return 2 * U;
+      const alpha = (sy + beta * sx) / cnt;
+      const target = Math.log(settings.tolG / 8 / W);
+      let n = Math.ceil((alpha - target) / beta / 4) * 4;
+      n = Math.max(n, U + 4);
+      if (n >= 1.6 * U) return 2 * U;
+      return n;
+    };
+    const refineS = (q: number): void => {
+      const U = degU[q];
+      const S = degS[q];
+      const newRows = rowsOf(2 * S);
+      const xs = lobattoNodes(U);
       const ys = lobattoNodes(2 * S);
-      for (let q = 0; q < specs.length; q++) {
-        const U = degU[q];
-        const xs = lobattoNodes(U);
-        const old = values[q];
-        const W = S + 1;
-        const W2 = 2 * S + 1;
-        const nv = new Float64Array((U + 1) * W2);
-        const colCoef = new Float64Array(S + 1);
-        const ct = cosTable(S);
-        const spread = Math.max(1e-9, Math.min(1, 4 * tails[q].s));
-        for (let i = 0; i <= U; i++) {
-          for (let k = 0; k <= S; k++) nv[i * W2 + 2 * k] = old[i * W + k];
-          chebCoefficients(old, S, i * W, 1, colCoef, 0, 1, ct);
-          for (let k = 1; k < 2 * S; k += 2) {
-            const guess = clenshaw(colCoef, S, 0, 1, ys[k]);
-            nv[i * W2 + k] = solveNode(q, newRows[k], xs[i], guess, spread);
-          }
-        }
-        values[q] = nv;
+      const old = values[q];
+      const W = S + 1;
+      const W2 = 2 * S + 1;
+      const nv = new Float64Array((U + 1) * W2);
+      const colCoef = new Float64Array(S + 1);
+      const ct = cosTable(S);
+      const spread = Math.max(1e-9, Math.min(1, 4 * tails[q].s));
+      for (let i = 0; i <= U; i++) {
+        throwIfAborted(signal);
+        for (let k = 0; k <= S; k++) nv[i * W2 + 2 * k] = old[i * W + k];
+        chebCoefficients(old, S, i * W, 1, colCoef, 0, 1, ct);
+        for (let k = 1; k < 2 * S; k += 2) nv[i * W2 + k] = solveNode(q, newRows[k], xs[i], clenshaw(colCoef, S, 0, 1, ys[k]), spread);
       }
-      rows = newRows;
-      degS = 2 * S;
-      for (let q = 0; q < specs.length; q++) refreshCoefs(q);
-      throwIfAborted(signal);
+      values[q] = nv;
+      degS[q] = 2 * S;
+    };
+    for (let q = 0; q < specs.length; q++) {
+      fillInitial(q);
+      refreshCoefs(q);
+      for (;;) {
+        const needU = tails[q].u > settings.tolG / 2 && 2 * degU[q] <= settings.degMax;
+        const needS = tails[q].s > settings.tolG / 2 && 2 * degS[q] <= Math.min(sMaxDeg, settings.degMax);
+        if (!needU && !needS) break;
+        // refine the direction with the larger tail first
+        if (needU && (!needS || tails[q].u >= tails[q].s)) refineU(q, predictDegU(q));
+        else refineS(q);
+        refreshCoefs(q);
+      }
     }
 
     // discretisation error of the node values: three rows × three nodes re-solved with halved steps
     const surfaces: SurfaceModel[] = specs.map((sp, q) => {
       let disc = 0;
       const U = degU[q];
+      const S = degS[q];
+      const rows = rowsOf(S);
       const xs = lobattoNodes(U);
-      const W = degS + 1;
-      for (const k of [0, degS >> 1, degS]) {
+      const W = S + 1;
+      for (const k of [0, S >> 1, S]) {
         const r = rows[k];
         const fine = newSolver(r.s, r.solver.lambdaRef, thrRows !== null ? settings.meshTolExcited : settings.meshTolGround, 2);
         // excited levels: relative to the fine mesh's own threshold (the threshold's discretisation
@@ -481,11 +519,12 @@ export function buildOrbitalModel(
       for (const v of values[q]) if (!Number.isFinite(v)) bad = true;
       return {
         nu: sp.nu,
-        shear: sp.shear,
         uA: sp.uA,
+        shA: sp.shA,
         uB: sp.uB,
+        shB: sp.shB,
         degU: U,
-        degS,
+        degS: S,
         coef: coefs[q],
         errG: bad ? Infinity : 2 * (t.u + t.s) + disc,
         tailU: t.u,
@@ -493,6 +532,6 @@ export function buildOrbitalModel(
         disc,
       };
     });
-    return { surfaces, rows };
+    return { surfaces, rows: groupRows };
   }
 }

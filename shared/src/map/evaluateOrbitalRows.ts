@@ -98,9 +98,10 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
         let e = Infinity;
         for (let q = 0; q < nG; q++) {
           const sf = ground.surfaces[q];
-          const u = sf.shear === 1 ? lnAlpha[i] : lnLam;
-          if (u < sf.uA - 1e-9 || u > sf.uB + 1e-9) continue;
-          G = clenshaw(rowCoefs[q], sf.degU, 0, 1, (2 * (u - sf.uA)) / (sf.uB - sf.uA) - 1);
+          const lo = sf.uA + sf.shA * s;
+          const hi = sf.uB + sf.shB * s;
+          if (lnLam < lo - 1e-9 || lnLam > hi + 1e-9) continue;
+          G = clenshaw(rowCoefs[q], sf.degU, 0, 1, (2 * (lnLam - lo)) / (hi - lo) - 1);
           e = sf.errG;
           break;
         }
@@ -125,9 +126,28 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
         let e = Infinity;
         for (let q = 0; q < exc!.surfaces.length; q++) {
           const sf = exc!.surfaces[q];
-          if (sf.nu !== nu || u < sf.uA - 1e-9 || u > sf.uB + 1e-9) continue;
-          G = clenshaw(rowCoefs[nG + q], sf.degU, 0, 1, (2 * (u - sf.uA)) / (sf.uB - sf.uA) - 1);
-          e = sf.errG + (2 * dl) / d;
+          if (sf.nu !== nu) continue;
+          const lo = sf.uA + sf.shA * s;
+          const hi = sf.uB + sf.shB * s;
+          if (u > hi + 1e-9) continue;
+          const c = rowCoefs[nG + q];
+          if (u >= lo) {
+            G = clenshaw(c, sf.degU, 0, 1, (2 * (u - lo)) / (hi - lo) - 1);
+            e = sf.errG + (2 * dl) / d;
+          } else {
+            // closer to the threshold than the surface reaches: G = G(lo) + G'(lo)(e^(u−lo) − 1), the
+            // leading behaviour G∞ + b(λ − λ_c); the neglected term is of the size of the curvature
+            // term at lo, |G''(lo) − G'(lo)|, which bounds the error estimate
+            const g0 = clenshaw(c, sf.degU, 0, 1, -1);
+            const h = 1e-3;
+            const gp = clenshaw(c, sf.degU, 0, 1, -1 + (2 * h) / (hi - lo));
+            const gpp = clenshaw(c, sf.degU, 0, 1, -1 + (4 * h) / (hi - lo));
+            const d1 = (gp - g0) / h;
+            const d2 = (gpp - 2 * gp + g0) / (h * h);
+            const x = Math.exp(u - lo);
+            G = g0 + d1 * (x - 1);
+            e = sf.errG + (2 * dl) / d + Math.abs(d2 - d1) * (1 - x);
+          }
           break;
         }
         if (!(e <= SAFETY * tol) || !Number.isFinite(G)) {

@@ -11,10 +11,15 @@
 /** One level's tensor Chebyshev interpolant of G over ξ ∈ [−1, 1] (u) × y ∈ [−1, 1] (s). */
 export interface SurfaceModel {
   nu: number;
-  /** u = uA + shear·s + (ξ + 1)(uB − uA)/2 (shear 1 for the ground state: ξ is then ln α). */
-  shear: 0 | 1;
+  /**
+   * Row-wise affine map ξ ↔ u: u = uLow(s) + (ξ + 1)(uHigh(s) − uLow(s))/2 with uLow = uA + shA·s,
+   * uHigh = uB + shB·s. Ground state: shA = shB = 1 (ξ is ln α); excited: shA = 0, shB = 1 with
+   * uB = ln α_max (the upper end is ln λ_max(B), the largest λ of the row).
+   */
   uA: number;
+  shA: number;
   uB: number;
+  shB: number;
   degU: number;
   degS: number;
   /** Chebyshev coefficients c[i·(degS + 1) + k] of G(ξ, y). */

@@ -31,6 +31,8 @@ export class OrbitalRowSolver {
   readonly depthPerLambda: number;
   /** Number of Magnus sweeps done (matching functions and zero-energy phases). */
   sweeps = 0;
+  /** dF/d ln ε near the root found by the last lnLevel call (a hint for the next node's search). */
+  lastSlope = NaN;
 
   constructor(
     readonly m: number,
@@ -62,7 +64,7 @@ export class OrbitalRowSolver {
    * secant misbehaves, a bracket widened ×4 per try and Brent's method. Returns −Infinity when the
    * level is bound more weakly than e^lnEpsMin (or does not exist).
    */
-  lnLevel(lambda: number, nu: number, guess: number, spread: number, lnEpsMin: number): number {
+  lnLevel(lambda: number, nu: number, guess: number, spread: number, lnEpsMin: number, slopeHint = NaN): number {
     const odd = (nu & 1) === 1;
     const target = (nu >> 1) * Math.PI;
     const mesh = this.mesh;
@@ -91,11 +93,17 @@ export class OrbitalRowSolver {
     let x0 = Math.min(guess, lnTop - d0);
     let g0 = G(x0);
     note(x0, g0);
+    // second point: a Newton step with the hinted slope if it is plausible, else ± spread
     let x1 = g0 > 0 ? x0 + d0 : x0 - d0;
+    if (slopeHint < 0) {
+      const nt = x0 - g0 / slopeHint;
+      if (Math.abs(nt - x0) < 4 * d0) x1 = nt === x0 ? x0 + 1e-12 : nt;
+    }
     let g1 = G(x1);
     note(x1, g1);
     for (let it = 0; it < 8; it++) {
       if (g1 === g0) break;
+      this.lastSlope = (g1 - g0) / (x1 - x0);
       const step = (-g1 * (x1 - x0)) / (g1 - g0);
       if (!Number.isFinite(step) || Math.abs(step) > 2) break;
       const x2 = x1 + step;
