@@ -155,6 +155,9 @@ describe('CSV export of a map', () => {
     expect(est.ok).toBe(true);
     expect(est.rows).toBe(table.rows.length);
     expect(Math.abs(est.bytes - utf8Encode(text).length) / utf8Encode(text).length).toBeLessThan(0.1);
+    const refused = estimateMapCsv({ setup, binding, date: DATE }, { maxBytes: 1000 });
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.message).toMatch(/^The CSV export of this map would be about [\d.]+ kB, above the limit of 1\.0 kB\./);
     const big = checkExportSize('csv', EXPORT_LIMITS.csvMaxBytes * 1.5, 'a 1024 × 1024 map with 65 orbitals');
     expect(big.ok).toBe(false);
     if (!big.ok) expect(big.message).toMatch(/^The CSV export of a 1024 × 1024 map with 65 orbitals would be about 1\.6 GB, above the limit of 1\.1 GB\. Use a coarser grid/);

@@ -26,14 +26,14 @@ export function formatBytes(bytes: number): string {
 }
 
 /**
- * Whether an export of the estimated size may be written, with a message naming the problem and the
+ * Whether an export of the estimated size may be written (against `maxBytes`, default `EXPORT_LIMITS`), with a message naming the problem and the
  * ways out when it may not.
  *
  * @example
  * checkExportSize('json', 3e8) // { ok: false, bytes: 3e8, message: 'The JSON export of this map would be about 300 MB, above the limit of 268 MB …' }
  */
-export function checkExportSize(kind: ExportKind, bytes: number, context = 'this map'): ExportSizeCheck {
-  const limit = kind === 'csv' ? EXPORT_LIMITS.csvMaxBytes : EXPORT_LIMITS.jsonMaxBytes;
+export function checkExportSize(kind: ExportKind, bytes: number, context = 'this map', maxBytes?: number): ExportSizeCheck {
+  const limit = maxBytes ?? (kind === 'csv' ? EXPORT_LIMITS.csvMaxBytes : EXPORT_LIMITS.jsonMaxBytes);
   if (bytes <= limit) return { ok: true, bytes };
   const advice =
     kind === 'csv'

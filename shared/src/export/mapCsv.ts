@@ -195,7 +195,7 @@ export function mapCsvRowCount(binding: BindingMapResult): number {
  * cells spread evenly over the map, formatted exactly), with the size check against `EXPORT_LIMITS`. Costs one pass
  * over the counts, not a full format.
  */
-export function estimateMapCsv(input: MapCsvInput, options: MapCsvOptions = {}): ExportSizeCheck & { rows: number } {
+export function estimateMapCsv(input: MapCsvInput, options: MapCsvOptions & { maxBytes?: number } = {}): ExportSizeCheck & { rows: number } {
   checkShapes(input);
   const rows = mapCsvRowCount(input.binding);
   const units = options.energyUnits ?? ['K', 'ueV'];
@@ -222,7 +222,7 @@ export function estimateMapCsv(input: MapCsvInput, options: MapCsvOptions = {}):
   }
   const mean = sampleRows > 0 ? sampleChars / sampleRows : 0;
   const bytes = Math.ceil(header * 1.05 + rows * mean);
-  return { ...checkExportSize('csv', bytes), rows };
+  return { ...checkExportSize('csv', bytes, 'this map', options.maxBytes), rows };
 }
 
 function sampleRowLength(input: MapCsvInput, units: readonly EnergyUnit[], i: number, j: number, m: number, nu: number): number {

@@ -95,11 +95,11 @@ export function mapJsonText(input: MapJsonInput): string {
 }
 
 /** Exact size in bytes of the JSON export (computed from the array sizes; nothing is formatted), with the size check. */
-export function estimateMapJson(input: MapJsonInput): ExportSizeCheck {
+export function estimateMapJson(input: MapJsonInput, options: { maxBytes?: number } = {}): ExportSizeCheck {
   const { binding, phase } = input;
   const b64 = (a: AnyTyped | null | undefined) => (a ? 4 * Math.ceil(a.byteLength / 3) + 60 : 0);
   let bytes = 2000 + 3 * JSON.stringify(input.setup).length;
   if (binding) bytes += 1200 + b64(binding.alphas) + b64(binding.fieldsAu) + b64(binding.bindingHartree) + b64(binding.counts) + b64(binding.flags);
   if (phase) bytes += 200 + b64(phase.stateClass) + b64(phase.widthHartree) + b64(phase.survivors) + b64(phase.fractions);
-  return checkExportSize('json', bytes);
+  return checkExportSize('json', bytes, 'this map', options.maxBytes);
 }
