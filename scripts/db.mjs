@@ -1,9 +1,11 @@
-// Database tasks: `npm run db:up | db:down | db:migrate | db:seed` (the demo database unless FIELDBOUND_DB_NAME says otherwise).
+// Database tasks: `npm run db:up | db:down | db:migrate | db:seed | db:backup [FILE] | db:restore -- FILE [--force]`
+// (the demo database unless FIELDBOUND_DB_NAME says otherwise). Backup and restore: scripts/lib/backup.mjs, docs/operations.md.
 import path from 'node:path';
 import { repoRoot } from './lib/paths.mjs';
 import { failAndExit, BootstrapError } from './lib/log.mjs';
 import { runOrThrow } from './lib/run.mjs';
 import { LocalCluster } from './lib/postgres.mjs';
+import { backup, restore } from './lib/backup.mjs';
 
 const database = process.env.FIELDBOUND_DB_NAME ?? 'fieldbound';
 
@@ -26,8 +28,24 @@ async function main(command) {
       runOrThrow(process.execPath, [cli, command, ...process.argv.slice(3)], { env: { ...process.env, ...cluster.envFor(database) } });
       return;
     }
+    case 'backup': {
+      const [file, ...extra] = process.argv.slice(3);
+      if (extra.length || file?.startsWith('-')) throw new BootstrapError('usage: node scripts/db.mjs backup [FILE]');
+      await cluster.start();
+      backup(cluster, database, file);
+      return;
+    }
+    case 'restore': {
+      const args = process.argv.slice(3);
+      const force = args.includes('--force');
+      const files = args.filter((a) => a !== '--force');
+      if (files.length !== 1 || files[0].startsWith('-')) throw new BootstrapError('usage: node scripts/db.mjs restore FILE [--force]   (npm run db:restore -- FILE [--force])');
+      await cluster.start();
+      restore(cluster, database, files[0], { force });
+      return;
+    }
     default:
-      throw new BootstrapError('usage: node scripts/db.mjs up|down|migrate|seed');
+      throw new BootstrapError('usage: node scripts/db.mjs up|down|migrate|seed|backup [FILE]|restore FILE [--force]');
   }
 }
 
