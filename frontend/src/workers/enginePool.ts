@@ -102,6 +102,12 @@ export class EnginePool {
     for (const s of this.slots) s.task?.job.fail(cancelled);
   }
 
+  /** Stops everything and starts every worker afresh (used by Retry after a crash). */
+  restart(): void {
+    this.cancelAll();
+    for (const slot of [...this.slots]) this.replace(slot);
+  }
+
   dispose(): void {
     this.cancelAll();
     this.disposed = true;

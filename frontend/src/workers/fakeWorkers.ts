@@ -10,7 +10,7 @@ import type { EngineWorkerApi } from './engineContract';
 export class FakeEngineWorker extends EventTarget {
   private readonly port: MessagePort;
   terminated = false;
-  constructor(api: Partial<EngineWorkerApi>) {
+  constructor(api: Partial<EngineWorkerApi> | object) {
     super();
     const channel = new MessageChannel();
     this.port = channel.port1;

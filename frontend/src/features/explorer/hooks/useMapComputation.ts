@@ -135,6 +135,10 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
     controller.current?.abort();
     setState((s) => (s.status === 'computing' ? { ...s, status: 'error', progress: null, error: new MapComputeError('cancelled', 'Computation cancelled.') } : s));
   }, []);
-  const retry = useCallback(() => setAttempt((a) => a + 1), []);
+  const retry = useCallback(() => {
+    // After a crash start from fresh workers; otherwise just run again.
+    if (state.error?.kind === 'crash') pool?.restart();
+    setAttempt((a) => a + 1);
+  }, [pool, state.error]);
   return { state, cancel, retry };
 }

@@ -1,0 +1,34 @@
+import { describe, expect, it } from 'vitest';
+import { fireEvent, render, screen } from '@testing-library/react';
+import { MemoryRouter } from 'react-router-dom';
+import { App as AntdApp } from 'antd';
+import { defaultSetup } from '@fieldbound/shared';
+import { ExplorerPage } from './ExplorerPage';
+import { FakeEngineWorker, ThrowingWorker, fakeBindingMap } from '../../workers/fakeWorkers';
+import { geometryFromFields } from '../map-render/mapGeometry';
+
+// A 4 × 4 map (no coarse pass) so the fake engine answers at once.
+const setup = { ...defaultSetup(), grid: { nAlpha: 4, nField: 4 } };
+const contourWorker = () => new FakeEngineWorker({ geometry: geometryFromFields }) as unknown as Worker;
+
+describe('ExplorerPage when the engine worker fails', () => {
+  it('shows a clear message with Retry (no endless spinner), and Retry computes the map with fresh workers', { timeout: 30_000 }, async () => {
+    let broken = true;
+    const engineWorker = () => (broken ? new ThrowingWorker() : new FakeEngineWorker({ bindingMap: fakeBindingMap(4) })) as unknown as Worker;
+    render(
+      <MemoryRouter initialEntries={['/explore']}>
+        <AntdApp>
+          <ExplorerPage initialSetup={setup} createEngineWorker={engineWorker} createContourWorker={contourWorker} />
+        </AntdApp>
+      </MemoryRouter>,
+    );
+    expect(await screen.findByText('Could not compute the map', {}, { timeout: 10_000 })).toBeTruthy();
+    expect(screen.getByText('The engine worker stopped unexpectedly: Uncaught RangeError: Maximum call stack size exceeded.')).toBeTruthy();
+    expect(screen.queryByRole('status', { name: 'Computation progress' })).toBeNull();
+
+    broken = false;
+    fireEvent.click(screen.getByRole('button', { name: 'Retry' }));
+    expect(await screen.findByText(/computed in \d+\.\d s/, {}, { timeout: 10_000 })).toBeTruthy();
+    expect(screen.queryByText('Could not compute the map')).toBeNull();
+  });
+});
