@@ -8,7 +8,7 @@ import { freePort, ThrowawayCluster } from './throwaway-cluster';
 
 /** pg's connectionTimeoutMillis in src/database/mikro-orm.config.ts, plus room for a loaded machine. */
 const CONNECT_TIMEOUT_MS = 3_000;
-const ANSWER_WITHIN_MS = CONNECT_TIMEOUT_MS + 2_000;
+const ANSWER_WITHIN_MS = CONNECT_TIMEOUT_MS + 3_000;
 
 interface Answer {
   status: number;
