@@ -188,27 +188,45 @@ export function buildOrbitalModel(
         K++;
         continue;
       }
-      // u-ranges of the excited surfaces
+      // one surface per excited level, over the fields where it exists somewhere in the map
       const specs: Spec[] = [];
+      const surfaces: SurfaceModel[] = [];
       for (let nu = 1; nu <= K; nu++) {
         const tm = thrCurves.models[nu - 1];
-        let uHi = -Infinity;
-        let lnLcMin = Infinity;
+        const lcAt = (s: number): number => Math.exp(clenshaw(tm.coef, tm.deg, 0, 1, yOf(s, sE, sB)));
+        // first map row where the level exists, and the crossing λ_c,ν(s) = λ_max(s) before it
+        let jFirst = -1;
         for (let j = 0; j < geo.rowS.length; j++) {
           const s = geo.rowS[j];
-          if (s < sE) continue;
-          const lc = Math.exp(clenshaw(tm.coef, tm.deg, 0, 1, yOf(s, sE, sB)));
-          lnLcMin = Math.min(lnLcMin, Math.log(lc));
-          if (lamMax(s) > lc) uHi = Math.max(uHi, Math.log(lamMax(s) - lc));
+          if (s >= sE && lamMax(s) > lcAt(s) && (jFirst < 0 || s < geo.rowS[jFirst])) jFirst = j;
         }
-        for (const r of thrCurves.rows) lnLcMin = Math.min(lnLcMin, Math.log(r.thr[nu]));
-        if (uHi === -Infinity) break; // ν and above never appear in a map row
-        const uLo = lnLcMin + Math.log(settings.nearThreshold);
-        // rows from u = ln(1e-6·λ_c) up to u = ln λ_max(B) (≥ every map cell of the row)
-        specs.push({ nu, uA: Math.min(uLo, Math.log(lamMax(sE)) - 1), shA: 0, uB: geo.lnAlphaMax, shB: 1 });
+        if (jFirst < 0) break; // ν and above never appear in a map row
+        let sLo = sE;
+        let sHi = geo.rowS[jFirst];
+        if (lamMax(sLo) > lcAt(sLo)) sHi = sLo;
+        for (let it = 0; it < 80 && sHi - sLo > 1e-12; it++) {
+          const c = 0.5 * (sLo + sHi);
+          if (lamMax(c) > lcAt(c)) sHi = c;
+          else sLo = c;
+        }
+        const sA = Math.min(sLo, sB - 1e-9);
+        let lnLcMin = Infinity;
+        for (let k = 0; k <= 64; k++) lnLcMin = Math.min(lnLcMin, Math.log(lcAt(sA + ((sB - sA) * k) / 64)));
+        const uLo = Math.min(lnLcMin + Math.log(settings.nearThreshold), Math.log(lamMax(sA)) - 1);
+        // rows from u = ln(nearThreshold·λ_c) up to u = ln λ_max(B) (≥ every map cell of the row)
+        const spec: Spec = { nu, uA: uLo, shA: 0, uB: geo.lnAlphaMax, shB: 1 };
+        specs.push(spec);
+        const makeRow = (s: number): Row => {
+          const lcPred = lcAt(s);
+          const solver = newSolver(s, (lcPred + lamMax(s)) * 1.05, settings.meshTolExcited);
+          const thr: number[] = [];
+          thr[nu] = solver.threshold(nu, Math.log(lcPred), 1e-7);
+          return { s, solver, thr };
+        };
+        const g = buildGroup([spec], sA, sB, makeRow, null);
+        surfaces.push(...g.surfaces);
       }
-      const group = buildGroup(specs, sE, sB, null, thrCurves.rows);
-      excited = { sA: sE, sB, surfaces: group.surfaces };
+      excited = { sA: sE, sB, surfaces };
       const nExcited = new Set(specs.map((sp) => sp.nu)).size;
       thresholds.push(...thrCurves.models.slice(0, nExcited + 1));
       levels = 1 + nExcited;
@@ -519,6 +537,8 @@ export function buildOrbitalModel(
       for (const v of values[q]) if (!Number.isFinite(v)) bad = true;
       return {
         nu: sp.nu,
+        sA,
+        sB,
         uA: sp.uA,
         shA: sp.shA,
         uB: sp.uB,

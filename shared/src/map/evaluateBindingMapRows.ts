@@ -57,12 +57,8 @@ export function evaluateBindingMapRows(
   for (let r0 = rowStart; r0 < rowEnd; r0 += ROW_CHUNK) {
     throwIfAborted(options.signal);
     const r1 = Math.min(rowEnd, r0 + ROW_CHUNK);
-    // a chunk is filled into its own small arrays, then copied: the arithmetic per cell does not
-    // depend on the chunking, so any split of the rows gives the same numbers
-    const sub = (r1 - r0) * nA;
-    const bh = new Float64Array(mCount * L * sub);
-    const ct = new Uint16Array(mCount * sub);
-    const fl = new Uint8Array(mCount * sub);
+    // every cell's arithmetic is independent of the chunking, so any split of the rows (windows,
+    // workers) gives the same numbers
     for (const om of model.orbitals) {
       const r = evaluateOrbitalRows(om, {
         alphas: model.alphas,
@@ -73,18 +69,14 @@ export function evaluateBindingMapRows(
         levelsPerOrbital: L,
         rowStart: r0,
         rowEnd: r1,
-        bindingHartree: bh,
-        counts: ct,
-        flags: fl,
+        arrayRowStart: rowStart,
+        arrayRows: rows,
+        bindingHartree,
+        counts,
+        flags,
       });
       maxRelError = Math.max(maxRelError, r.maxRelError);
       directSolves += r.directSolves;
-    }
-    const off = (r0 - rowStart) * nA;
-    for (let q = 0; q < mCount * L; q++) bindingHartree.set(bh.subarray(q * sub, (q + 1) * sub), q * cellCount + off);
-    for (let m = 0; m < mCount; m++) {
-      counts.set(ct.subarray(m * sub, (m + 1) * sub), m * cellCount + off);
-      flags.set(fl.subarray(m * sub, (m + 1) * sub), m * cellCount + off);
     }
     if (options.onProgress) {
       const doneHere = (r1 - rowStart) * nA;

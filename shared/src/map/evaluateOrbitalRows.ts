@@ -14,9 +14,12 @@ export interface RowBlockTarget {
   tolerance: number;
   /** Levels per orbital of the layout (the map's `levelsPerOrbital`). */
   levelsPerOrbital: number;
-  /** First map row of the block and the block's cell count (rows × nAlpha). */
+  /** Map rows to fill, [rowStart, rowEnd). */
   rowStart: number;
   rowEnd: number;
+  /** First map row and number of rows of the arrays below (a window of the map). */
+  arrayRowStart: number;
+  arrayRows: number;
   bindingHartree: Float64Array;
   counts: Uint16Array;
   flags: Uint8Array;
@@ -38,7 +41,8 @@ function rowCoefficients(sf: SurfaceModel, y: number, out: Float64Array): void {
 }
 
 /**
- * Fills the rows [rowStart, rowEnd) of orbital m from its interpolation model: per level, the
+ * Fills the rows [rowStart, rowEnd) of orbital m from its interpolation model (the target arrays
+ * must be zero where nothing is written: unbound levels are left at 0): per level, the
  * interpolated G gives ε = B·exp(G + 2u); cells whose estimated error (surface error + threshold
  * uncertainty 2δλ_c/(λ − λ_c)) exceeds half the tolerance, or whose existence near a threshold is
  * uncertain, are solved directly (`directOrbital`, the numbers of `levels`) and flagged DIRECT_SOLVE.
@@ -50,7 +54,7 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
   const m = model.m;
   const nA = t.alphas.length;
   const L = t.levelsPerOrbital;
-  const blockCells = (t.rowEnd - t.rowStart) * nA;
+  const blockCells = t.arrayRows * nA;
   const tol = t.tolerance;
   const floor = t.floorHartree;
   let maxRelError = 0;
@@ -59,8 +63,36 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
   for (let i = 0; i < nA; i++) lnAlpha[i] = Math.log(t.alphas[i]);
   const ground = model.ground;
   const exc = model.excited;
-  const maxDeg = Math.max(...ground.surfaces.map((s) => s.degU), ...(exc?.surfaces.map((s) => s.degU) ?? [0]));
-  const rowCoefs = [...ground.surfaces, ...(exc?.surfaces ?? [])].map(() => new Float64Array(maxDeg + 1));
+  // Ground state: one surface in (ln α, ln B) — its u-coordinate ξ depends on the column only, so
+  // T_p(ξ_i) is tabulated once and each row is a small matrix–vector product.
+  if (ground.surfaces.length !== 1 || ground.surfaces[0].shA !== 1 || ground.surfaces[0].shB !== 1) {
+    throw new Error('evaluateOrbitalRows: the ground state must be one surface in (ln α, ln B)');
+  }
+  const gs = ground.surfaces[0];
+  const UG = gs.degU;
+  const tmat = new Float64Array(nA * (UG + 1));
+  for (let i = 0; i < nA; i++) {
+    const xi = Math.min(1, Math.max(-1, (2 * (lnAlpha[i] - gs.uA)) / (gs.uB - gs.uA) - 1));
+    let t0 = 1;
+    let t1 = xi;
+    tmat[i * (UG + 1)] = 1;
+    if (UG >= 1) tmat[i * (UG + 1) + 1] = xi;
+    for (let p = 2; p <= UG; p++) {
+      const t2 = 2 * xi * t1 - t0;
+      tmat[i * (UG + 1) + p] = t2;
+      t0 = t1;
+      t1 = t2;
+    }
+  }
+  const aG = new Float64Array(UG + 1);
+  // Excited levels: one surface per ν (index ν − 1).
+  const nLev = model.levels;
+  const exSurf: SurfaceModel[] = [];
+  if (exc !== null) for (const sf of exc.surfaces) exSurf[sf.nu - 1] = sf;
+  const exCoef = exSurf.map((sf) => new Float64Array(sf.degU + 1));
+  const exLo = new Float64Array(nLev);
+  const exHi = new Float64Array(nLev);
+  const exOn = new Uint8Array(nLev);
   const eps = new Float64Array(L); // scaled values of one cell
   const err = new Float64Array(L);
   const lambdaC = new Float64Array(L);
@@ -70,46 +102,41 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
     const s = Math.log(B);
     const rhoC = t.cutoffBohr * Math.sqrt(B);
     const depth0 = Math.abs(scaledPotential(m, 0, rhoC));
-    // row coefficient vectors
-    const yG = yOf(s, ground.sA, ground.sB);
-    ground.surfaces.forEach((sf, q) => rowCoefficients(sf, yG, rowCoefs[q]));
-    const nG = ground.surfaces.length;
+    rowCoefficients(gs, yOf(s, gs.sA, gs.sB), aG);
+    const errG0 = gs.errG;
     let nExc = 0;
     if (exc !== null && s >= exc.sA) {
       const yE = yOf(s, exc.sA, exc.sB);
-      exc.surfaces.forEach((sf, q) => rowCoefficients(sf, yE, rowCoefs[nG + q]));
-      nExc = model.levels - 1;
+      nExc = nLev - 1;
       for (let nu = 1; nu <= nExc; nu++) {
         const tm = model.thresholds[nu - 1];
         lambdaC[nu] = Math.exp(clenshaw(tm.coef, tm.deg, 0, 1, yE));
         lcErr[nu] = tm.relErr * lambdaC[nu];
+        const sf = exSurf[nu - 1];
+        exOn[nu] = 0;
+        if (sf !== undefined && s >= sf.sA - 1e-12) {
+          rowCoefficients(sf, yOf(Math.max(s, sf.sA), sf.sA, sf.sB), exCoef[nu - 1]);
+          exLo[nu] = sf.uA + sf.shA * s;
+          exHi[nu] = sf.uB + sf.shB * s;
+          exOn[nu] = 1;
+        }
       }
     }
+    const W = UG + 1;
     for (let i = 0; i < nA; i++) {
       const alpha = t.alphas[i];
       const lambda = alpha * B;
-      const cell = (j - t.rowStart) * nA + i;
-      let n = 0;
+      const cell = (j - t.arrayRowStart) * nA + i;
       let direct = false;
       // ground state
-      {
-        const lnLam = lnAlpha[i] + s;
-        let G = NaN;
-        let e = Infinity;
-        for (let q = 0; q < nG; q++) {
-          const sf = ground.surfaces[q];
-          const lo = sf.uA + sf.shA * s;
-          const hi = sf.uB + sf.shB * s;
-          if (lnLam < lo - 1e-9 || lnLam > hi + 1e-9) continue;
-          G = clenshaw(rowCoefs[q], sf.degU, 0, 1, (2 * (lnLam - lo)) / (hi - lo) - 1);
-          e = sf.errG;
-          break;
-        }
-        if (!(e <= SAFETY * tol) || !Number.isFinite(G)) direct = true;
-        eps[0] = Math.exp(G + 2 * lnLam);
-        err[0] = e;
-        n = 1;
-      }
+      const lnLam = lnAlpha[i] + s;
+      let G0 = 0;
+      const o = i * W;
+      for (let p = 0; p < W; p++) G0 += tmat[o + p] * aG[p];
+      if (!(errG0 <= SAFETY * tol) || !Number.isFinite(G0)) direct = true;
+      eps[0] = Math.exp(G0 + 2 * lnLam);
+      err[0] = errG0;
+      let n = 1;
       // excited levels
       for (let nu = 1; nu <= nExc && !direct; nu++) {
         const lc = lambdaC[nu];
@@ -121,34 +148,37 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
           break;
         }
         if (d <= 0) break;
-        const u = Math.log(d);
-        let G = NaN;
-        let e = Infinity;
-        for (let q = 0; q < exc!.surfaces.length; q++) {
-          const sf = exc!.surfaces[q];
-          if (sf.nu !== nu) continue;
-          const lo = sf.uA + sf.shA * s;
-          const hi = sf.uB + sf.shB * s;
-          if (u > hi + 1e-9) continue;
-          const c = rowCoefs[nG + q];
-          if (u >= lo) {
-            G = clenshaw(c, sf.degU, 0, 1, (2 * (u - lo)) / (hi - lo) - 1);
-            e = sf.errG + (2 * dl) / d;
-          } else {
-            // closer to the threshold than the surface reaches: G = G(lo) + G'(lo)(e^(u−lo) − 1), the
-            // leading behaviour G∞ + b(λ − λ_c); the neglected term is of the size of the curvature
-            // term at lo, |G''(lo) − G'(lo)|, which bounds the error estimate
-            const g0 = clenshaw(c, sf.degU, 0, 1, -1);
-            const h = 1e-3;
-            const gp = clenshaw(c, sf.degU, 0, 1, -1 + (2 * h) / (hi - lo));
-            const gpp = clenshaw(c, sf.degU, 0, 1, -1 + (4 * h) / (hi - lo));
-            const d1 = (gp - g0) / h;
-            const d2 = (gpp - 2 * gp + g0) / (h * h);
-            const x = Math.exp(u - lo);
-            G = g0 + d1 * (x - 1);
-            e = sf.errG + (2 * dl) / d + Math.abs(d2 - d1) * (1 - x);
-          }
+        if (exOn[nu] === 0) {
+          direct = true; // exists here but its surface does not reach this row (cannot happen for a single crossing)
           break;
+        }
+        const sf = exSurf[nu - 1];
+        const c = exCoef[nu - 1];
+        const lo = exLo[nu];
+        const hi = exHi[nu];
+        const u = Math.log(d);
+        let G: number;
+        let e: number;
+        if (u > hi + 1e-9) {
+          direct = true;
+          break;
+        }
+        if (u >= lo) {
+          G = clenshaw(c, sf.degU, 0, 1, (2 * (u - lo)) / (hi - lo) - 1);
+          e = sf.errG + (2 * dl) / d;
+        } else {
+          // closer to the threshold than the surface reaches: G = G(lo) + G'(lo)(e^(u−lo) − 1), the
+          // leading behaviour G∞ + b(λ − λ_c); the neglected term is of the size of the curvature
+          // term at lo, |G''(lo) − G'(lo)|, which bounds the error estimate
+          const g0 = clenshaw(c, sf.degU, 0, 1, -1);
+          const h = 1e-3;
+          const gp = clenshaw(c, sf.degU, 0, 1, -1 + (2 * h) / (hi - lo));
+          const gpp = clenshaw(c, sf.degU, 0, 1, -1 + (4 * h) / (hi - lo));
+          const d1 = (gp - g0) / h;
+          const d2 = (gpp - 2 * gp + g0) / (h * h);
+          const x = Math.exp(u - lo);
+          G = g0 + d1 * (x - 1);
+          e = sf.errG + (2 * dl) / d + Math.abs(d2 - d1) * (1 - x);
         }
         if (!(e <= SAFETY * tol) || !Number.isFinite(G)) {
           direct = true;
@@ -176,7 +206,6 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
           }
           kept++;
         }
-        for (let k = Math.min(kept, L); k < L; k++) t.bindingHartree[(m * L + k) * blockCells + cell] = 0;
         t.counts[base] = Math.min(kept, L);
         t.flags[base] = orbitalCellFlags(m, alpha, t.cutoffBohr, kept > 0 ? dv.epsilon[0] : 0, dropped, true);
         continue;
@@ -193,7 +222,6 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
         if (err[k] > maxRelError) maxRelError = err[k];
         kept = k + 1;
       }
-      for (let k = kept; k < L; k++) t.bindingHartree[(m * L + k) * blockCells + cell] = 0;
       t.counts[base] = kept;
       t.flags[base] = orbitalCellFlags(m, alpha, t.cutoffBohr, kept > 0 ? eps[0] : 0, dropped, false);
     }

@@ -11,6 +11,9 @@
 /** One level's tensor Chebyshev interpolant of G over ξ ∈ [−1, 1] (u) × y ∈ [−1, 1] (s). */
 export interface SurfaceModel {
   nu: number;
+  /** s-range [sA, sB] (s = ln B) of the surface: y = 2(s − sA)/(sB − sA) − 1. */
+  sA: number;
+  sB: number;
   /**
    * Row-wise affine map ξ ↔ u: u = uLow(s) + (ξ + 1)(uHigh(s) − uLow(s))/2 with uLow = uA + shA·s,
    * uHigh = uB + shB·s. Ground state: shA = shB = 1 (ξ is ln α); excited: shA = 0, shB = 1 with
