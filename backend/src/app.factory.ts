@@ -1,11 +1,13 @@
 import { ConsoleLogger, type INestApplication } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
+import { ConfigService } from '@nestjs/config';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import helmet from 'helmet';
 import { AppModule } from './app.module';
 import { DatabaseUnavailableFilter } from './common/database-unavailable.filter';
 import type { Clock } from './common/clock';
 import { createValidationPipe } from './common/validation';
+import { setupOpenApi } from './common/openapi';
 import { loadConfig, type AppConfig } from './config/configuration';
 
 export interface CreateAppOptions {
@@ -26,6 +28,8 @@ export async function createApp(options: CreateAppOptions = {}): Promise<INestAp
   app.set('trust proxy', 'loopback');
   // whitelist + forbidNonWhitelisted + transform; 400s list messages per field (src/common/validation.ts).
   app.useGlobalPipes(createValidationPipe());
+  // OpenAPI page at /api/docs and JSON at /api/docs-json, generated from the controllers and DTOs.
+  setupOpenApi(app, app.get(ConfigService<AppConfig, true>).get('version', { infer: true }));
   // 503 instead of 500 while the database is unreachable. It matches only connection failures, so
   // other global filters keep every other error whatever the registration order (common/database-unavailable.filter.ts).
   app.useGlobalFilters(new DatabaseUnavailableFilter());

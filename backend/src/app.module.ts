@@ -14,6 +14,10 @@ import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { TeamsModule } from './teams/teams.module';
 import { UsersModule } from './users/users.module';
+import { MapsModule } from './maps/maps.module';
+import { SpeciesModule } from './species/species.module';
+import { PinsModule } from './pins/pins.module';
+import { ViewingLinksModule } from './viewing-links/viewing-links.module';
 
 export interface AppModuleOptions {
   /** Replaces the system clock (tests move time forward with it). */
@@ -47,6 +51,10 @@ export class AppModule implements NestModule {
         UsersModule,
         TeamsModule,
         InvitationsModule,
+        SpeciesModule,
+        MapsModule,
+        PinsModule,
+        ViewingLinksModule,
       ],
     };
   }

@@ -7,6 +7,8 @@ import type { NextFunction, Request, Response } from 'express';
  */
 export function redactPath(path: string): string {
   return path
+    // A viewing-link token is the whole point of /api/view/<token>: never log it, whatever its length.
+    .replace(/^(\/api\/view\/)[^/]+/i, '$1:token')
     .split('/')
     .map((segment) => {
       const decoded = safeDecode(segment);

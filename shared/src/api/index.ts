@@ -1,1 +1,6 @@
 export type { HealthResponse } from './health.js';
+export * from './common.js';
+export * from './maps.js';
+export * from './pins.js';
+export * from './links.js';
+export * from './species.js';

@@ -1,0 +1,7 @@
+/** The part of a multer in-memory upload (`FileInterceptor`) that services use. */
+export interface UploadedBytes {
+  buffer: Buffer;
+  size: number;
+  originalname: string;
+  mimetype: string;
+}

@@ -1,0 +1,52 @@
+import { EntityRepository, type FilterQuery, raw } from '@mikro-orm/postgresql';
+import type { MapSortKey } from '@fieldbound/shared';
+import type { SavedMap } from './map.entity';
+
+export interface MapListQuery {
+  search?: string;
+  tag?: string;
+  sort: MapSortKey;
+  order: 'asc' | 'desc';
+  limit: number;
+  offset: number;
+}
+
+/** Queries of the map aggregate (maps with their summary and thumbnail). */
+export class MapRepository extends EntityRepository<SavedMap> {
+  /** A map that is not in the bin, or null. */
+  findLive(id: string): Promise<SavedMap | null> {
+    return this.findOne({ id, deletedAt: null } as FilterQuery<SavedMap>, { populate: ['createdBy', 'updatedBy', 'summary', 'summary.computedBy', 'thumbnail'] });
+  }
+
+  /** A map whatever its state (restore, purge). */
+  findAny(id: string): Promise<SavedMap | null> {
+    return this.findOne({ id } as FilterQuery<SavedMap>, { populate: ['createdBy', 'updatedBy', 'deletedBy', 'summary', 'summary.computedBy', 'thumbnail'] });
+  }
+
+  /** Live maps of a team, searched in title and tags (case-insensitive), sorted and paged. */
+  async listForTeam(teamId: string, query: MapListQuery): Promise<[SavedMap[], number]> {
+    const where: Record<string, unknown> = { team: teamId, deletedAt: null };
+    const and: Record<string, unknown>[] = [];
+    if (query.search) {
+      const pattern = `%${query.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      // Title contains the text, or some tag does.
+      and.push({
+        $or: [{ title: { $ilike: pattern } }, { [raw((alias) => `array_to_string(${alias}.tags, ' ')`)]: { $ilike: pattern } }],
+      });
+    }
+    if (query.tag) and.push({ tags: { $contains: [query.tag] } });
+    if (and.length) where.$and = and;
+    const orderBy = query.sort === 'title' ? { title: query.order, id: 'asc' } : { [query.sort]: query.order, id: 'asc' };
+    return this.findAndCount(where as FilterQuery<SavedMap>, {
+      populate: ['createdBy', 'updatedBy', 'summary', 'summary.computedBy', 'thumbnail'],
+      orderBy: orderBy as never,
+      limit: query.limit,
+      offset: query.offset,
+    });
+  }
+
+  /** Maps in the bin of a team, most recently deleted first. */
+  listDeleted(teamId: string): Promise<SavedMap[]> {
+    return this.find({ team: teamId, deletedAt: { $ne: null } } as FilterQuery<SavedMap>, { populate: ['deletedBy'], orderBy: { deletedAt: 'desc' } });
+  }
+}

@@ -1,0 +1,51 @@
+import type { SpeciesEntry, SpeciesListView } from '@fieldbound/shared';
+import type { CatalogueSpecies } from './catalogue-species.entity';
+import type { SpeciesList } from './species-list.entity';
+import type { TeamSpecies } from './team-species.entity';
+
+export function catalogueEntry(s: CatalogueSpecies): SpeciesEntry {
+  return {
+    id: `catalogue:${s.symbol}`,
+    origin: 'catalogue',
+    list: null,
+    symbol: s.symbol,
+    name: s.name,
+    atomicNumber: s.atomicNumber,
+    polarizability: { value: s.polarizabilityA0, uncertainty: s.polarizabilityUncertaintyA0, entered: null, source: s.polarizabilitySource },
+    electronAffinity: { valueEv: s.electronAffinityEv, uncertaintyEv: s.electronAffinityUncertaintyEv, source: s.electronAffinitySource },
+    massNumber: s.massNumber,
+    massSource: s.massSource,
+  };
+}
+
+export function teamEntry(s: TeamSpecies, list: SpeciesList): SpeciesEntry {
+  return {
+    id: s.id,
+    origin: 'team',
+    list: { id: list.id, name: list.name },
+    symbol: null,
+    name: s.name,
+    atomicNumber: null,
+    polarizability: {
+      value: s.polarizabilityA0,
+      uncertainty: s.polarizabilityUncertaintyA0,
+      entered: s.enteredUnit === 'a0^3' ? null : { value: s.enteredValue, uncertainty: s.enteredUncertainty, unit: s.enteredUnit },
+      source: s.source,
+    },
+    electronAffinity: { valueEv: s.electronAffinityEv, uncertaintyEv: null, source: s.electronAffinityEv === null ? null : s.source },
+    massNumber: s.massNumber,
+    massSource: s.source,
+  };
+}
+
+export function listView(list: SpeciesList, speciesCount: number): SpeciesListView {
+  return {
+    id: list.id,
+    teamId: list.team.id,
+    name: list.name,
+    fileName: list.fileName,
+    speciesCount,
+    createdAt: list.createdAt.toISOString(),
+    createdBy: list.createdBy ? { id: list.createdBy.id, displayName: list.createdBy.displayName } : null,
+  };
+}

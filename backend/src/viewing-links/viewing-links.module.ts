@@ -1,0 +1,8 @@
+import { Module } from '@nestjs/common';
+import { MapsModule } from '../maps/maps.module';
+import { ViewingLinksController } from './viewing-links.controller';
+import { ViewingLinksService } from './viewing-links.service';
+
+/** Read-only viewing links to one map; the public `GET /api/view/:token` is the only route without sign-in. */
+@Module({ imports: [MapsModule], controllers: [ViewingLinksController], providers: [ViewingLinksService] })
+export class ViewingLinksModule {}

@@ -1,0 +1,97 @@
+import { GoneException, Injectable, NotFoundException } from '@nestjs/common';
+import { EntityManager, raw } from '@mikro-orm/postgresql';
+import type { CreatedViewingLink, SharedMapView, ViewingLinkView } from '@fieldbound/shared';
+import { Clock } from '../common/clock';
+import type { AuthUser } from '../common/current-user.decorator';
+import { fieldError } from '../common/validation';
+import { MapAccessService } from '../maps/map-access.service';
+import { personRef } from '../maps/map.views';
+import { Pin } from '../pins/pin.entity';
+import { toSharedPin } from '../pins/pin.views';
+import { User } from '../users/user.entity';
+import type { CreateViewingLinkDto } from './dto/viewing-link.dto';
+import { ViewingLink } from './viewing-link.entity';
+import { hashViewingToken, looksLikeViewingToken, newViewingToken } from './viewing-link-token';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+function toLinkView(link: ViewingLink): ViewingLinkView {
+  return {
+    id: link.id,
+    mapId: link.map.id,
+    createdBy: personRef(link.createdBy),
+    createdAt: link.createdAt.toISOString(),
+    expiresAt: link.expiresAt?.toISOString() ?? null,
+    includePins: link.includePins,
+    viewCount: link.viewCount,
+    lastViewedAt: link.lastViewedAt?.toISOString() ?? null,
+    revokedAt: link.revokedAt?.toISOString() ?? null,
+  };
+}
+
+/** Unknown, revoked, and links to maps in the bin all look the same from outside. */
+function linkNotFound(): NotFoundException {
+  return new NotFoundException({ statusCode: 404, code: 'viewing_link_not_found', message: 'This viewing link does not exist or was revoked.' });
+}
+
+/** Read-only links to one map for people without an account. */
+@Injectable()
+export class ViewingLinksService {
+  constructor(
+    private readonly em: EntityManager,
+    private readonly mapAccess: MapAccessService,
+    private readonly clock: Clock,
+  ) {}
+
+  async list(mapId: string, caller: AuthUser): Promise<ViewingLinkView[]> {
+    const { map } = await this.mapAccess.load(mapId, caller.id, 'editor');
+    const links = await this.em.find(ViewingLink, { map }, { populate: ['createdBy'], orderBy: { createdAt: 'desc', id: 'asc' } });
+    return links.map(toLinkView);
+  }
+
+  /** Creates a link; the answer is the only place the token ever appears. */
+  async create(mapId: string, caller: AuthUser, dto: CreateViewingLinkDto): Promise<CreatedViewingLink> {
+    const { map } = await this.mapAccess.load(mapId, caller.id, 'editor');
+    const now = this.clock.now();
+    let expiresAt: Date | null = null;
+    if (dto.expiresAt) {
+      expiresAt = new Date(dto.expiresAt);
+      if (!(expiresAt.getTime() > now.getTime())) throw fieldError('expiresAt', 'The expiry must be in the future.');
+    }
+    const { token, hash } = newViewingToken();
+    const link = new ViewingLink(map, hash, await this.em.findOneOrFail(User, caller.id), now);
+    link.expiresAt = expiresAt;
+    link.includePins = dto.includePins ?? false;
+    this.em.persist(link);
+    await this.em.flush();
+    return { link: toLinkView(link), token, path: `/view/${token}` };
+  }
+
+  async revoke(mapId: string, linkId: string, caller: AuthUser): Promise<void> {
+    const { map } = await this.mapAccess.load(mapId, caller.id, 'editor');
+    const link = UUID.test(linkId) ? await this.em.findOne(ViewingLink, { id: linkId.toLowerCase(), map }) : null;
+    if (!link) throw linkNotFound();
+    if (link.revokedAt) return;
+    link.revokedAt = this.clock.now();
+    link.revokedBy = this.em.getReference(User, caller.id);
+    await this.em.flush();
+  }
+
+  /**
+   * What a link holder may see: title, description, setup and (if the link allows) pins. Counts the view.
+   * Unknown or revoked → 404; expired → 410.
+   */
+  async view(token: string): Promise<SharedMapView> {
+    if (!looksLikeViewingToken(token)) throw linkNotFound();
+    const link = await this.em.findOne(ViewingLink, { tokenHash: hashViewingToken(token) }, { populate: ['map'] });
+    if (!link || link.revokedAt || link.map.deletedAt) throw linkNotFound();
+    const now = this.clock.now();
+    if (link.expiresAt && link.expiresAt.getTime() <= now.getTime()) {
+      throw new GoneException({ statusCode: 410, code: 'viewing_link_expired', message: 'This viewing link has expired. Ask the person who shared it for a new one.' });
+    }
+    // Counted in the database so simultaneous views are all counted.
+    await this.em.nativeUpdate(ViewingLink, { id: link.id }, { viewCount: raw('view_count + 1'), lastViewedAt: now } as never);
+    const pins = link.includePins ? await this.em.find(Pin, { map: link.map }, { orderBy: { createdAt: 'asc', id: 'asc' } }) : null;
+    return { title: link.map.title, description: link.map.description, setup: link.map.setup, pins: pins ? pins.map(toSharedPin) : null };
+  }
+}
