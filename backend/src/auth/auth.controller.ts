@@ -6,6 +6,7 @@ import type { AppConfig } from '../config/configuration';
 import { Public } from '../common/public.decorator';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { readCookie } from '../common/cookies';
+import { isDatabaseUnavailableError } from '../common/database-unavailable.filter';
 import { AuthService } from './auth.service';
 import { ChangePasswordDto, ForgotPasswordDto, RegisterDto, ResetPasswordDto, SignInDto } from './dto/auth.dto';
 import { clearRefreshCookie, clientMeta, REFRESH_COOKIE, sendSession } from './refresh-cookie';
@@ -49,7 +50,8 @@ export class AuthController {
     try {
       return this.withCookie(res, await this.sessions.refresh(readCookie(req, REFRESH_COOKIE), clientMeta(req)));
     } catch (error) {
-      this.clearCookie(res);
+      // A database outage says nothing about the cookie: keep it, so the session survives the outage.
+      if (!isDatabaseUnavailableError(error)) this.clearCookie(res);
       throw error;
     }
   }

@@ -3,6 +3,7 @@ import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import { IS_PUBLIC_KEY } from '../common/public.decorator';
 import { ApiError } from '../common/api-error';
+import { isDatabaseUnavailableError } from '../common/database-unavailable.filter';
 import type { AuthUser } from '../common/current-user.decorator';
 
 /**
@@ -24,6 +25,8 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
 
   override handleRequest<TUser = AuthUser>(err: unknown, user: TUser | false, info: unknown): TUser {
     if (err instanceof HttpException) throw err;
+    // The account could not be looked up because the database is away: 503, not "sign in again".
+    if (isDatabaseUnavailableError(err)) throw err;
     if (err) throw new ApiError(401, 'access_token_invalid', 'The access token could not be checked; sign in again.');
     if (user) return user;
     if (info instanceof Error && info.name === 'TokenExpiredError') {
