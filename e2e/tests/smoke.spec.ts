@@ -2,7 +2,8 @@ import { expect, test } from '@playwright/test';
 
 test('the app opens in Chromium with its shell and a connected database', async ({ page }) => {
   await page.goto('/');
-  await expect(page).toHaveURL(/\/maps$/);
+  // Signed out: the app asks to sign in, and will come back to / afterwards.
+  await expect(page).toHaveURL(/\/sign-in\?next=%2F$/);
   await expect(page.getByRole('link', { name: 'Fieldbound home' })).toBeVisible();
   const health = page.getByTestId('health');
   await expect(health).toHaveAttribute('data-state', 'up');

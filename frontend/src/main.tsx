@@ -9,6 +9,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { App as AntdApp, ConfigProvider } from 'antd';
 import { App } from './App';
 import { lightTheme } from './theme/theme';
+import { CurrentTeamProvider } from './state/currentTeam';
 
 const queryClient = new QueryClient({
   defaultOptions: { queries: { staleTime: 15_000, refetchOnWindowFocus: false } },
@@ -19,9 +20,11 @@ createRoot(document.getElementById('root')!).render(
     <ConfigProvider theme={lightTheme}>
       <AntdApp>
         <QueryClientProvider client={queryClient}>
-          <BrowserRouter>
-            <App />
-          </BrowserRouter>
+          <CurrentTeamProvider>
+            <BrowserRouter>
+              <App />
+            </BrowserRouter>
+          </CurrentTeamProvider>
         </QueryClientProvider>
       </AntdApp>
     </ConfigProvider>

@@ -8,7 +8,7 @@ export function useHealth() {
     queryKey: ['health'],
     queryFn: async (): Promise<HealthResponse> => {
       try {
-        return await apiFetch<HealthResponse>('/health');
+        return await apiFetch<HealthResponse>('/health', { auth: false });
       } catch (error) {
         if (error instanceof ApiError && error.status === 503 && error.body && typeof error.body === 'object') {
           return error.body as HealthResponse;

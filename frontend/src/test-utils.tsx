@@ -1,0 +1,25 @@
+import { App as AntdApp } from 'antd';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { render } from '@testing-library/react';
+import type { ReactElement } from 'react';
+import { MemoryRouter } from 'react-router-dom';
+
+/** Renders with a fresh query client (no retries), antd's App context and a router at `path`. */
+export function renderWithProviders(ui: ReactElement, { path = '/' }: { path?: string } = {}) {
+  const client = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
+  return {
+    client,
+    ...render(
+      <QueryClientProvider client={client}>
+        <AntdApp>
+          <MemoryRouter initialEntries={[path]}>{ui}</MemoryRouter>
+        </AntdApp>
+      </QueryClientProvider>,
+    ),
+  };
+}
+
+/** A JSON Response as fetch would resolve it. */
+export function jsonResponse(status: number, body: unknown): Response {
+  return new Response(body === undefined ? null : JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+}
