@@ -22,6 +22,7 @@ describe('isDatabaseUnavailableError', () => {
     ["MikroORM's ConnectionException", new ConnectionException(new Error('connection lost'))],
     ['node-postgres: connection terminated unexpectedly', new Error('Connection terminated unexpectedly')],
     ['node-postgres: connection timeout', new Error('Connection terminated due to connection timeout')],
+    ['a database refusing connections during a restore swap (55000)', new DriverException(withCode('database "fieldbound" is not currently accepting connections', '55000'))],
     ['knex pool timeout', new KnexTimeoutError('Knex: Timeout acquiring a connection. The pool is probably full. Are you missing a .transacting(trx) call?')],
     ['AggregateError of refused attempts, through the driver', new DriverException(Object.assign(new AggregateError([withCode('connect ECONNREFUSED ::1:54329', 'ECONNREFUSED')], ''), { code: 'ECONNREFUSED' }))],
     ['wrapped as the cause of another error', new Error('saving the map failed', { cause: new DriverException(withCode('connect ECONNREFUSED 127.0.0.1:54329', 'ECONNREFUSED')) })],
@@ -33,6 +34,7 @@ describe('isDatabaseUnavailableError', () => {
 
   const other: [string, unknown][] = [
     ['a unique-constraint violation (23505)', new UniqueConstraintViolationException(withCode('duplicate key value violates unique constraint', '23505'))],
+    ['another 55000 (object not in prerequisite state)', new DriverException(withCode('cannot drop the currently open database', '55000'))],
     ['a syntax error (42601)', new SyntaxErrorException(withCode('syntax error at or near', '42601'))],
     ['an unknown database (3D000): configuration, not an outage', new DriverException(withCode('database "nope" does not exist', '3D000'))],
     ['a refused connection of the mail server (not through the database driver)', withCode('connect ECONNREFUSED 127.0.0.1:2525', 'ECONNREFUSED')],

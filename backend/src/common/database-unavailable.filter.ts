@@ -27,6 +27,7 @@ const UNAVAILABLE_MESSAGES = [
   /^timeout expired$/i, // node-postgres connectionTimeoutMillis
   /Client has encountered a connection error and is not queryable/i,
   /Timeout acquiring a connection\. The pool is probably full/i, // knex KnexTimeoutError
+  /^database "[^"]*" is not currently accepting connections$/i, // 55000 while `npm run db:restore` swaps databases
 ];
 
 function isSqlState(code: unknown): code is string {
