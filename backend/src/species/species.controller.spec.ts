@@ -46,7 +46,12 @@ describe('species catalogue', () => {
     expect(cs.polarizability.source).toMatch(/Schwerdtfeger.*Nagle/);
     expect(cs.massSource).toMatch(/AME2020/);
     const he = res.body.items.find((s: { symbol: string }) => s.symbol === 'He');
-    expect(he.electronAffinity).toMatchObject({ valueEv: null });
+    expect(he.electronAffinity).toMatchObject({ valueEv: null, stableAnion: false, status: 'confirmed' });
+    expect(he.electronAffinity.note).toMatch(/metastable/);
+    // The one value the compilation could not confirm in a public document is flagged as such.
+    const tl = res.body.items.find((s: { symbol: string }) => s.symbol === 'Tl');
+    expect(tl.electronAffinity).toMatchObject({ valueEv: 0.320053, stableAnion: true, status: 'from memory' });
+    expect(res.body.items.filter((s: { electronAffinity: { status: string } }) => s.electronAffinity.status !== 'confirmed').map((s: { symbol: string }) => s.symbol)).toEqual(['Tl']);
     expect(he.electronAffinity.source).toMatch(/Andersen/);
     expect(res.body.items.map((s: { atomicNumber: number }) => s.atomicNumber)).toEqual([...res.body.items.map((s: { atomicNumber: number }) => s.atomicNumber)].sort((a, b) => a - b));
   });

@@ -11,8 +11,15 @@ export function catalogueEntry(s: CatalogueSpecies): SpeciesEntry {
     symbol: s.symbol,
     name: s.name,
     atomicNumber: s.atomicNumber,
-    polarizability: { value: s.polarizabilityA0, uncertainty: s.polarizabilityUncertaintyA0, entered: null, source: s.polarizabilitySource },
-    electronAffinity: { valueEv: s.electronAffinityEv, uncertaintyEv: s.electronAffinityUncertaintyEv, source: s.electronAffinitySource },
+    polarizability: { value: s.polarizabilityA0, uncertainty: s.polarizabilityUncertaintyA0, entered: null, source: s.polarizabilitySource, status: s.polarizabilityStatus },
+    electronAffinity: {
+      valueEv: s.electronAffinityEv,
+      uncertaintyEv: s.electronAffinityUncertaintyEv,
+      stableAnion: s.electronAffinityEv !== null,
+      source: s.electronAffinitySource,
+      status: s.electronAffinityStatus,
+      note: s.electronAffinityNote,
+    },
     massNumber: s.massNumber,
     massSource: s.massSource,
   };
@@ -31,8 +38,9 @@ export function teamEntry(s: TeamSpecies, list: SpeciesList): SpeciesEntry {
       uncertainty: s.polarizabilityUncertaintyA0,
       entered: s.enteredUnit === 'a0^3' ? null : { value: s.enteredValue, uncertainty: s.enteredUncertainty, unit: s.enteredUnit },
       source: s.source,
+      status: null,
     },
-    electronAffinity: { valueEv: s.electronAffinityEv, uncertaintyEv: null, source: s.electronAffinityEv === null ? null : s.source },
+    electronAffinity: { valueEv: s.electronAffinityEv, uncertaintyEv: null, stableAnion: s.electronAffinityEv !== null, source: s.electronAffinityEv === null ? null : s.source, status: null, note: null },
     massNumber: s.massNumber,
     massSource: s.source,
   };

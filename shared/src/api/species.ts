@@ -30,12 +30,20 @@ export interface SpeciesEntry {
     /** What was entered, when it was in another unit. */
     entered: { value: number; uncertainty: number | null; unit: AlphaUnit } | null;
     source: string;
+    /** Catalogue only: "confirmed" (seen in a public document while the data were compiled) or "from memory" (to be checked); null for team species. */
+    status: string | null;
   };
   electronAffinity: {
     /** eV; null means no stable anion (none known / none given). */
     valueEv: number | null;
     uncertaintyEv: number | null;
+    /** False when the neutral atom has no stable negative ion (valueEv is then null). */
+    stableAnion: boolean;
     source: string | null;
+    /** Catalogue only, as for the polarizability. */
+    status: string | null;
+    /** Catalogue only: remarks of the compilation (e.g. metastable anion states that are not binding energies). */
+    note: string | null;
   };
   massNumber: number;
   massSource: string | null;
