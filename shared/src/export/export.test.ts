@@ -306,3 +306,15 @@ describe('JSON import: bad input gets a clear message and nothing else', () => {
     expect(p[0]).toEqual({ path: 'results.phase.stateClass', message: 'value 0 is 9; classes are 0 to 3' });
   });
 });
+
+describe('result fingerprint', () => {
+  it('changes with the setup or the engine version and not with display choices', async () => {
+    const { resultFingerprint } = await import('./resultFingerprint.js');
+    const a = resultFingerprint(setup, '0.1.0');
+    expect(a.short).toMatch(/^[0-9a-f]{8}$/);
+    expect(a.full.startsWith(a.short)).toBe(true);
+    expect(resultFingerprint(setup, '0.1.1').full).not.toBe(a.full);
+    expect(resultFingerprint({ ...setup, shortRange: { model: 'regularized-polarization', cutoffBohr: 2.5 } }, '0.1.0').full).not.toBe(a.full);
+    expect(resultFingerprint({ ...setup, display: { ...setup.display, energyUnit: 'GHz' } }, '0.1.0').full).toBe(a.full);
+  });
+});

@@ -12,3 +12,4 @@ export * from './crc32.js';
 export * from './pngTextChunks.js';
 export * from './xmlEscape.js';
 export * from './figureMetadata.js';
+export * from './resultFingerprint.js';

@@ -51,6 +51,7 @@ describe('methods note', () => {
       'α/r_c² ≥ 1 are flagged cutoff-dominated',
       'the part of the map with α ≥ r_c² = 10.56 a₀³', // r_c² = 3.25² = 10.5625
       'field-free negative ion',
+      'here ρ_c runs from 0.00821 to 0.045', // 3.25 · √(1.5 / 235051.76) … 3.25 · √(45 / 235051.76)
       'sinh-mapped coordinate',
       'sixth-order Magnus integrator',
       'Prüfer-type matching function',
