@@ -29,6 +29,9 @@ export interface BuildSettings {
   degMax: number;
   degThresholdMax: number;
   degThreshold0: number;
+  /** Excited nodes with λ − λ_c ≥ farFromThreshold·λ_c are solved on a mesh of accuracy meshTolFar. */
+  farFromThreshold: number;
+  meshTolFar: number;
   /** Lower end of the excited u-range: λ − λ_c ≥ nearThreshold·λ_c. */
   nearThreshold: number;
 }
@@ -44,6 +47,8 @@ export const DEFAULT_BUILD: BuildSettings = {
   degThresholdMax: 96,
   degThreshold0: 12,
   nearThreshold: 1e-4,
+  farFromThreshold: 0.05,
+  meshTolFar: 1e-8,
 };
 
 interface Spec {
@@ -59,6 +64,12 @@ interface Row {
   solver: OrbitalRowSolver;
   /** λ_c,ν at this row for ν = 0…(index), NaN where not computed. */
   thr: number[];
+  /**
+   * Excited rows: a cheaper mesh (meshTolFar) for nodes far above the threshold, made on first use.
+   * There the threshold's discretisation offset δ only enters as 2δ/(λ − λ_c) ≤ 2δ/(farFromThreshold·λ_c).
+   */
+  far?: OrbitalRowSolver;
+  lambdaRef?: number;
 }
 
 const LN_TINY = -1400; // far below any resolvable ln ε̃ (solver epsMin is ≥ 1e-26·depth)
@@ -83,7 +94,8 @@ function nestedRows(old: Row[] | null, deg: number, sA: number, sB: number, make
 /**
  * Builds the interpolation model of orbital m over a map (model.md §2, "Whole maps fast"):
  *  1. ground state: G_0(ln α, ln B) on a tensor Chebyshev–Lobatto grid, degrees doubled (nested,
- *     every old node reused) until the last two coefficient planes in each direction are below tolG;
+ *     every old node reused, or a predicted degree in u) until twice the last two coefficient
+ *     planes of both directions add up to less than tolG;
  *  2. where the first excited level exists somewhere in the map (from the Sturm counts at α_max):
  *     threshold curves λ_c,ν(ln B) on their own nested Chebyshev grid to tolThreshold, and one
  *     surface G_ν(ln(λ − λ_c,ν), ln B) per excited level, refined the same way;
@@ -110,6 +122,13 @@ export function buildOrbitalModel(
     return r;
   };
 
+  /** The mesh a node is solved on: the row's own, or its cheaper far mesh well above a threshold. */
+  const solverFor = (row: Row, nu: number, u: number): OrbitalRowSolver => {
+    if (nu === 0 || !(Math.exp(u) >= settings.farFromThreshold * row.thr[nu])) return row.solver;
+    row.far ??= newSolver(row.s, row.solver.lambdaRef, settings.meshTolFar);
+    return row.far;
+  };
+
   // ---------- ground state ----------
   const sA0 = geo.sMin;
   const sB0 = geo.sMax;
@@ -126,113 +145,111 @@ export function buildOrbitalModel(
   );
 
   // ---------- excited levels ----------
-  // Sturm counts at α_max on the ground rows: where does ν = 1 exist in the map?
+  // Sturm counts at α_max on the ground rows: which levels exist somewhere in the map, and from
+  // which row on (the count at α_max grows with B across the map; the largest is taken as K)
   const groundRows = groundSurface.rows;
-  let firstWith = -1;
-  let maxCount = 1;
-  for (let k = 0; k < groundRows.length; k++) {
-    const r = groundRows[k];
-    const c = r.solver.count(lamMax(r.s));
-    if (c > maxCount) maxCount = c;
-    if (c >= 2 && firstWith < 0) firstWith = k;
-  }
+  const countAt: number[] = groundRows.map((r) => r.solver.count(lamMax(r.s)));
+  const K = Math.max(...countAt) - 1;
   let excited: GroupModel | null = null;
   const thresholds: ThresholdModel[] = [];
-  let levels = 1;
-  if (firstWith >= 0) {
-    // s_e: where λ_c,1(s) = α_max·B, between the last row without and the first row with ν = 1
-    let sE = geo.sMin;
-    if (firstWith > 0) {
-      const f = (s: number): number => {
-        const sol = newSolver(s, lamMax(s) * (1 + 1e-9), settings.meshTolGround);
-        return sol.phase(lamMax(s), true) - Math.PI;
-      };
-      let a = groundRows[firstWith - 1].s;
-      let b = groundRows[firstWith].s;
+  const surfaces: SurfaceModel[] = [];
+  const sB = geo.sMax;
+  for (let nu = 1; nu <= K; nu++) {
+    throwIfAborted(signal);
+    const odd = (nu & 1) === 1;
+    const target = ((nu >> 1) + 1) * Math.PI;
+    // s_e,ν: where λ_c,ν(s) = α_max·B, between the last ground row without and the first with ν
+    const first = countAt.findIndex((c) => c >= nu + 1);
+    let sA = geo.sMin;
+    if (first > 0) {
+      const f = (s: number): number => newSolver(s, lamMax(s) * (1 + 1e-9), settings.meshTolGround).phase(lamMax(s), odd) - target;
+      let a = groundRows[first - 1].s;
+      let b = groundRows[first].s;
       let fa = f(a);
       let fb = f(b);
-      // bisection to 1e-10 in s (robust; ~35 small mesh builds)
-      for (let it = 0; it < 60 && b - a > 1e-10 * (1 + Math.abs(b)); it++) {
-        const c = 0.5 * (a + b);
+      // Illinois (modified regula falsi) to 1e-7 in ln B: Ψ is smooth in s, a few mesh builds
+      let side = 0;
+      for (let it = 0; it < 40 && b - a > 1e-7; it++) {
+        const c = fa === fb ? 0.5 * (a + b) : Math.min(b - 1e-9, Math.max(a + 1e-9, b - (fb * (b - a)) / (fb - fa)));
         const fc = f(c);
         if (fc < 0) {
           a = c;
           fa = fc;
+          if (side === -1) fb /= 2;
+          side = -1;
         } else {
           b = c;
           fb = fc;
+          if (side === 1) fa /= 2;
+          side = 1;
         }
       }
-      void fa;
-      void fb;
-      sE = a;
+      sA = a;
     }
-    const sB = geo.sMax;
-    let K = Math.max(1, maxCount - 1); // excited levels present somewhere (grown below if needed)
-    const lamRefExc = 2 * lamMax(sB);
-    for (let attempt = 0; attempt < 8; attempt++) {
-      throwIfAborted(signal);
-      const thrCurves = buildThresholds(sE, sB, K + 1, lamRefExc);
-      // does level K + 1 appear in some map row?
-      let grow = false;
-      for (let j = 0; j < geo.rowS.length; j++) {
-        const s = geo.rowS[j];
-        if (s < sE) continue;
-        const lc = Math.exp(clenshaw(thrCurves.models[K].coef, thrCurves.models[K].deg, 0, 1, yOf(s, sE, sB)));
-        if (lc < lamMax(s)) {
-          grow = true;
-          break;
-        }
+    sA = Math.min(sA, sB - 1e-9);
+    // rows of this level: own mesh (sized for λ ≤ λ_c,ν + λ_max(B)) and own threshold on it
+    const makeRow = (s: number, k: number, cur: Row[]): Row => {
+      const left = cur[k - 1];
+      const right = k + 1 < cur.length ? cur[k + 1] : undefined;
+      let guess: number;
+      let spread: number;
+      if (left !== undefined && right !== undefined) {
+        guess = 0.5 * (Math.log(left.thr[nu]) + Math.log(right.thr[nu]));
+        spread = 0.5 * Math.abs(Math.log(right.thr[nu]) - Math.log(left.thr[nu])) + 1e-9;
+      } else if (left !== undefined) {
+        guess = Math.log(left.thr[nu]) + (s - left.s) * 0.5;
+        spread = 0.5 * (s - left.s) + 1e-3;
+      } else {
+        guess = Math.log(lamMax(s)); // at s_e,ν the threshold equals λ_max by construction
+        spread = 1e-3;
       }
-      if (grow) {
-        K++;
-        continue;
+      let lamRef = (Math.exp(guess) + lamMax(s)) * 1.2;
+      for (let attempt = 0; ; attempt++) {
+        const solver = newSolver(s, lamRef, settings.meshTolExcited);
+        const thr: number[] = [];
+        thr[nu] = solver.threshold(nu, guess, spread);
+        const need = thr[nu] + lamMax(s);
+        if (need <= lamRef || attempt >= 3 || !Number.isFinite(need)) return { s, solver, thr };
+        lamRef = need * 1.1;
+        guess = Math.log(thr[nu]);
+        spread = 1e-9;
       }
-      // one surface per excited level, over the fields where it exists somewhere in the map
-      const specs: Spec[] = [];
-      const surfaces: SurfaceModel[] = [];
-      for (let nu = 1; nu <= K; nu++) {
-        const tm = thrCurves.models[nu - 1];
-        const lcAt = (s: number): number => Math.exp(clenshaw(tm.coef, tm.deg, 0, 1, yOf(s, sE, sB)));
-        // first map row where the level exists, and the crossing λ_c,ν(s) = λ_max(s) before it
-        let jFirst = -1;
-        for (let j = 0; j < geo.rowS.length; j++) {
-          const s = geo.rowS[j];
-          if (s >= sE && lamMax(s) > lcAt(s) && (jFirst < 0 || s < geo.rowS[jFirst])) jFirst = j;
+    };
+    const uTop = geo.lnAlphaMax;
+    // u-range: from nearThreshold·λ_c (estimated from the ends of the range) to ln λ_max(B)
+    const probeLo = makeRow(sA, 0, []);
+    const probeHi = makeRow(sB, 1, [probeLo]);
+    const lnLcMin = Math.min(Math.log(probeLo.thr[nu]), Math.log(probeHi.thr[nu]));
+    const uLo = Math.min(lnLcMin + Math.log(settings.nearThreshold), Math.log(lamMax(sA)) - 1);
+    const spec: Spec = { nu, uA: uLo, shA: 0, uB: uTop, shB: 1 };
+    const g = buildGroup([spec], sA, sB, (s, k, cur) => (k === 0 ? probeLo : k === cur.length - 1 ? probeHi : makeRow(s, k, cur)), null);
+    surfaces.push(...g.surfaces);
+    // threshold curve ln λ_c,ν(s) on the level's rows, refined (nested) to tolThreshold
+    let rows = g.rows;
+    for (;;) {
+      const R = rows.length - 1;
+      const vals = new Float64Array(R + 1);
+      for (let k = 0; k <= R; k++) vals[k] = Math.log(rows[k].thr[nu]);
+      const coef = new Float64Array(R + 1);
+      chebCoefficients(vals, R, 0, 1, coef, 0, 1, cosTable(R));
+      const tail = Math.abs(coef[R]) + Math.abs(coef[R - 1]);
+      if (tail <= settings.tolThreshold || 2 * R > settings.degThresholdMax || !vals.every(Number.isFinite)) {
+        // discretisation: the threshold re-solved with halved steps at three rows
+        let disc = 0;
+        for (const k of [0, R >> 1, R]) {
+          const r = rows[k];
+          const fine = newSolver(r.s, r.solver.lambdaRef, settings.meshTolExcited, 2);
+          const f = fine.threshold(nu, Math.log(r.thr[nu]), 1e-9);
+          disc = Math.max(disc, Math.abs(f - r.thr[nu]) / f);
         }
-        if (jFirst < 0) break; // ν and above never appear in a map row
-        let sLo = sE;
-        let sHi = geo.rowS[jFirst];
-        if (lamMax(sLo) > lcAt(sLo)) sHi = sLo;
-        for (let it = 0; it < 80 && sHi - sLo > 1e-12; it++) {
-          const c = 0.5 * (sLo + sHi);
-          if (lamMax(c) > lcAt(c)) sHi = c;
-          else sLo = c;
-        }
-        const sA = Math.min(sLo, sB - 1e-9);
-        let lnLcMin = Infinity;
-        for (let k = 0; k <= 64; k++) lnLcMin = Math.min(lnLcMin, Math.log(lcAt(sA + ((sB - sA) * k) / 64)));
-        const uLo = Math.min(lnLcMin + Math.log(settings.nearThreshold), Math.log(lamMax(sA)) - 1);
-        // rows from u = ln(nearThreshold·λ_c) up to u = ln λ_max(B) (≥ every map cell of the row)
-        const spec: Spec = { nu, uA: uLo, shA: 0, uB: geo.lnAlphaMax, shB: 1 };
-        specs.push(spec);
-        const makeRow = (s: number): Row => {
-          const lcPred = lcAt(s);
-          const solver = newSolver(s, (lcPred + lamMax(s)) * 1.05, settings.meshTolExcited);
-          const thr: number[] = [];
-          thr[nu] = solver.threshold(nu, Math.log(lcPred), 1e-7);
-          return { s, solver, thr };
-        };
-        const g = buildGroup([spec], sA, sB, makeRow, null);
-        surfaces.push(...g.surfaces);
+        thresholds.push({ nu, sA, sB, deg: R, coef, relErr: 2 * tail + disc });
+        break;
       }
-      excited = { sA: sE, sB, surfaces };
-      const nExcited = new Set(specs.map((sp) => sp.nu)).size;
-      thresholds.push(...thrCurves.models.slice(0, nExcited + 1));
-      levels = 1 + nExcited;
-      break;
+      rows = nestedRows(rows, 2 * R, sA, sB, makeRow);
     }
   }
+  if (K >= 1) excited = { sA: Math.min(...surfaces.map((x) => x.sA)), sB, surfaces };
+  const levels = 1 + K;
 
   for (const s of solvers) sweeps += s.sweeps;
   return {
@@ -247,116 +264,28 @@ export function buildOrbitalModel(
 
   // ---------------------------------------------------------------------------------------------
 
-  /** Threshold curves ν = 1…nuTop over [sA, sB] on nested Lobatto rows, refined to tolThreshold. */
-  function buildThresholds(sA: number, sB: number, nuTop: number, lamRef: number): { rows: Row[]; models: ThresholdModel[] } {
-    let deg = settings.degThreshold0;
-    let rows: Row[] | null = null;
-    for (;;) {
-      throwIfAborted(signal);
-      const prev: Row[] | null = rows;
-      rows = nestedRows(prev, deg, sA, sB, (s, k, cur) => {
-        // prediction: neighbour rows (already built at k − 1, or old rows at k ± 1)
-        const left = cur[k - 1];
-        const right = k + 1 < cur.length ? cur[k + 1] : undefined;
-        // The row's mesh must serve λ up to max_ν λ_c,ν + λ_max(B) (the surfaces' largest λ):
-        // start from the neighbours' thresholds and rebuild once if the row needs more.
-        let need = 2 * lamMax(s);
-        for (const nb of [left, right]) {
-          if (nb === undefined) continue;
-          for (let nu = 1; nu < nuTop; nu++) if (Number.isFinite(nb.thr[nu])) need = Math.max(need, 1.2 * nb.thr[nu] + lamMax(s));
-        }
-        let lamRefRow = Math.min(need, lamRef);
-        for (let attempt = 0; ; attempt++) {
-          const solver = newSolver(s, lamRefRow, settings.meshTolExcited);
-          const thr: number[] = [0];
-          for (let nu = 1; nu <= nuTop; nu++) {
-            let guess: number;
-            let spread: number;
-            const lv = left?.thr[nu];
-            const rv = right?.thr[nu];
-            if (lv !== undefined && rv !== undefined && Number.isFinite(lv) && Number.isFinite(rv)) {
-              guess = 0.5 * (Math.log(lv) + Math.log(rv));
-              spread = Math.abs(Math.log(rv) - Math.log(lv)) * 0.5 + 1e-9;
-            } else if (lv !== undefined && Number.isFinite(lv)) {
-              guess = Math.log(lv);
-              spread = 0.05;
-            } else {
-              guess = nu > 1 && Number.isFinite(thr[nu - 1]) ? Math.log(thr[nu - 1]) + 0.5 : Math.log(lamMax(s));
-              spread = 0.5;
-            }
-            thr.push(solver.threshold(nu, guess, spread));
-          }
-          let needed = lamMax(s);
-          for (let nu = 1; nu < nuTop; nu++) needed = Math.max(needed, thr[nu] + lamMax(s));
-          if (needed <= lamRefRow * 1.0001 || attempt >= 4 || lamRefRow >= lamRef) return { s, solver, thr };
-          lamRefRow = Math.min(lamRef, Number.isFinite(needed) ? needed * 1.1 : lamRefRow * 4);
-        }
-      });
-      // interpolants of ln λ_c; finite everywhere?
-      const models: ThresholdModel[] = [];
-      let worst = 0;
-      const ct = cosTable(deg);
-      for (let nu = 1; nu <= nuTop; nu++) {
-        const vals = new Float64Array(deg + 1);
-        let finite = true;
-        for (let k = 0; k <= deg; k++) {
-          const v = rows[k].thr[nu];
-          if (!(v > 0 && Number.isFinite(v))) finite = false;
-          vals[k] = Math.log(v);
-        }
-        const coef = new Float64Array(deg + 1);
-        if (finite) chebCoefficients(vals, deg, 0, 1, coef, 0, 1, ct);
-        else coef.fill(Math.log(4 * lamRef)); // beyond reach: never below any map λ
-        const tail = finite ? Math.abs(coef[deg]) + Math.abs(coef[deg - 1]) : 0;
-        if (nu < nuTop) worst = Math.max(worst, tail);
-        models.push({ nu, deg, coef, relErr: tail });
-      }
-      if (worst <= settings.tolThreshold || deg >= settings.degThresholdMax) {
-        // discretisation error of the thresholds: re-solve at three rows with halved steps
-        const disc = thresholdDiscretisation(rows, nuTop, lamRef);
-        for (const tm of models) tm.relErr = 2 * tm.relErr + disc[tm.nu];
-        return { rows, models };
-      }
-      deg *= 2;
-    }
-  }
-
-  function thresholdDiscretisation(rows: Row[], nuTop: number, lamRef: number): number[] {
-    const out = new Array<number>(nuTop + 1).fill(0);
-    for (const k of [0, rows.length >> 1, rows.length - 1]) {
-      const r = rows[k];
-      const fine = newSolver(r.s, lamRef, settings.meshTolExcited, 2);
-      for (let nu = 1; nu <= nuTop; nu++) {
-        const v = r.thr[nu];
-        if (!Number.isFinite(v)) continue;
-        const f = fine.threshold(nu, Math.log(v), 1e-9);
-        out[nu] = Math.max(out[nu], Math.abs(f - v) / f);
-      }
-    }
-    return out;
-  }
-
   /**
    * Surfaces G_ν for the given levels over [sA, sB]. Each level has its own degrees (degU, degS);
    * the group's rows are the Lobatto rows of the largest s-degree, either made by `makeRow` (nested
    * doubling) or taken from the threshold rows `thrRows` (a level of s-degree S uses every
-   * (T/S)-th of them). Refinement: double degU while the u-tail exceeds tolG/2, double degS while
-   * the s-tail does; new nodes are predicted from the current interpolant.
+   * (T/S)-th of them). Refinement: while 2(tail_u + tail_s) > tolG, raise the degree of the
+   * direction with the larger tail (u: predicted degree or doubling; s: doubling, nested); new nodes
+   * are predicted from the current interpolant.
    */
   function buildGroup(
     specs: Spec[],
     sA: number,
     sB: number,
-    makeRow: ((s: number) => Row) | null,
+    makeRow: ((s: number, k: number, cur: Row[]) => Row) | null,
     thrRows: Row[] | null,
   ): { surfaces: SurfaceModel[]; rows: Row[] } {
     const sMaxDeg = thrRows !== null ? thrRows.length - 1 : settings.degMax;
-    let groupRows: Row[] = thrRows ?? nestedRows(null, Math.min(settings.degS0, sMaxDeg), sA, sB, (s) => makeRow!(s));
+    let groupRows: Row[] = thrRows ?? nestedRows(null, Math.min(settings.degS0, sMaxDeg), sA, sB, makeRow!);
     const rowsOf = (deg: number): Row[] => {
       let R = groupRows.length - 1;
       if (thrRows === null) {
         while (R < deg) {
-          groupRows = nestedRows(groupRows, 2 * R, sA, sB, (s) => makeRow!(s));
+          groupRows = nestedRows(groupRows, 2 * R, sA, sB, makeRow!);
           R *= 2;
         }
       }
@@ -381,8 +310,9 @@ export function buildOrbitalModel(
       const u = uOf(q, xi, row.s);
       const lambda = (nu === 0 ? 0 : row.thr[nu]) + Math.exp(u);
       nodeSolves++;
+      const solver = solverFor(row, nu, u);
       // the slope of the matching function at this row's previous root is a good Newton hint
-      const lnEps = row.solver.lnLevel(lambda, nu, guessG + 2 * u, spread, LN_TINY, spread < 1e-3 ? row.solver.lastSlope : NaN);
+      const lnEps = solver.lnLevel(lambda, nu, guessG + 2 * u, spread, LN_TINY, spread < 1e-3 ? solver.lastSlope : NaN);
       return lnEps - 2 * u;
     };
     // initial grid: row by row, node by node, each predicted from its neighbours
@@ -449,7 +379,7 @@ export function buildOrbitalModel(
       degU[q] = n;
     };
     /**
-     * u-degree predicted to bring the tail below tolG/2: the decay rate of the largest coefficient per
+     * u-degree predicted to bring the u-tail below tolG/16: the decay rate of the largest coefficient per
      * u-degree over the upper half of the current spectrum, extrapolated (rounded up to a multiple
      * of 4, at least U + 4, at most 2U, and 2U — nested — when within 20 % of it).
      */
@@ -467,7 +397,7 @@ export function buildOrbitalModel(
       const beta = -(cnt * sxy - sx * sy) / (cnt * sxx - sx * sx);
       if (!(beta > 0.05)) return 2 * U;
       const alpha = (sy + beta * sx) / cnt;
-      const target = Math.log(settings.tolG / 8 / W);
+      const target = Math.log(settings.tolG / 16 / W);
       let n = Math.ceil((alpha - target) / beta / 4) * 4;
       n = Math.max(n, U + 4);
       if (n >= 1.6 * U) return 2 * U;
@@ -498,9 +428,11 @@ export function buildOrbitalModel(
     for (let q = 0; q < specs.length; q++) {
       fillInitial(q);
       refreshCoefs(q);
+      // refine until the error estimate 2(tail_u + tail_s) is below tolG (disc, ~1e-9, comes on top)
       for (;;) {
-        const needU = tails[q].u > settings.tolG / 2 && 2 * degU[q] <= settings.degMax;
-        const needS = tails[q].s > settings.tolG / 2 && 2 * degS[q] <= Math.min(sMaxDeg, settings.degMax);
+        if (2 * (tails[q].u + tails[q].s) <= settings.tolG) break;
+        const needU = tails[q].u > settings.tolG / 8 && 2 * degU[q] <= settings.degMax;
+        const needS = tails[q].s > settings.tolG / 8 && 2 * degS[q] <= Math.min(sMaxDeg, settings.degMax);
         if (!needU && !needS) break;
         // refine the direction with the larger tail first
         if (needU && (!needS || tails[q].u >= tails[q].s)) refineU(q, predictDegU(q));
@@ -520,15 +452,18 @@ export function buildOrbitalModel(
       for (const k of [0, S >> 1, S]) {
         const r = rows[k];
         const fine = newSolver(r.s, r.solver.lambdaRef, thrRows !== null ? settings.meshTolExcited : settings.meshTolGround, 2);
-        // excited levels: relative to the fine mesh's own threshold (the threshold's discretisation
-        // error is accounted for separately, per cell)
+        // excited levels near the threshold: relative to the refined mesh's own threshold (the
+        // threshold's own discretisation error is accounted for per cell); far from it, the far mesh
+        // against its refined version at the same λ
         const nu = sp.nu;
         const thrFine = nu === 0 ? 0 : fine.threshold(nu, Math.log(r.thr[nu]), 1e-9);
         for (const i of [0, U >> 1, U]) {
           const u = uOf(q, xs[i], r.s);
-          const lambda = thrFine + Math.exp(u);
+          const sol = solverFor(r, nu, u);
+          const check = sol === r.solver ? fine : newSolver(r.s, sol.lambdaRef, settings.meshTolFar, 2);
+          const lambda = (sol === r.solver ? thrFine : nu === 0 ? 0 : r.thr[nu]) + Math.exp(u);
           const g = values[q][i * W + k];
-          const lnEps = fine.lnLevel(lambda, nu, g + 2 * u, 1e-8, LN_TINY);
+          const lnEps = check.lnLevel(lambda, nu, g + 2 * u, 1e-8, LN_TINY);
           disc = Math.max(disc, Math.abs(lnEps - 2 * u - g));
         }
       }

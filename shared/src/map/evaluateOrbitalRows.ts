@@ -106,12 +106,12 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
     const errG0 = gs.errG;
     let nExc = 0;
     if (exc !== null && s >= exc.sA) {
-      const yE = yOf(s, exc.sA, exc.sB);
       nExc = nLev - 1;
       for (let nu = 1; nu <= nExc; nu++) {
         const tm = model.thresholds[nu - 1];
-        lambdaC[nu] = Math.exp(clenshaw(tm.coef, tm.deg, 0, 1, yE));
-        lcErr[nu] = tm.relErr * lambdaC[nu];
+        // below the curve's range the level is absent from the whole row
+        lambdaC[nu] = s < tm.sA ? Infinity : Math.exp(clenshaw(tm.coef, tm.deg, 0, 1, yOf(s, tm.sA, tm.sB)));
+        lcErr[nu] = s < tm.sA ? 0 : tm.relErr * lambdaC[nu];
         const sf = exSurf[nu - 1];
         exOn[nu] = 0;
         if (sf !== undefined && s >= sf.sA - 1e-12) {

@@ -35,9 +35,14 @@ export interface SurfaceModel {
   disc: number;
 }
 
-/** A threshold curve ln λ_c,ν(s) as a Chebyshev series over the excited group's s-range. */
+/**
+ * A threshold curve ln λ_c,ν(s) as a Chebyshev series over [sA, sB], the fields where level ν exists
+ * somewhere in the map (below sA, λ_c,ν > α_max·B: the level is absent from every cell of the row).
+ */
 export interface ThresholdModel {
   nu: number;
+  sA: number;
+  sB: number;
   deg: number;
   coef: Float64Array;
   /** Estimated largest relative error of λ_c,ν (interpolation + discretisation). */
@@ -55,9 +60,9 @@ export interface OrbitalModel {
   m: number;
   /** Ground state over the whole field range. */
   ground: GroupModel;
-  /** Excited levels ν = 1…, over the fields where ν = 1 exists somewhere in the map (null if none). */
+  /** Excited levels ν = 1…, each over the fields where it exists somewhere in the map (null if none). */
   excited: GroupModel | null;
-  /** Threshold curves of the excited levels ν = 1…levels (the last one is the first level absent from the map). */
+  /** Threshold curves of the excited levels ν = 1…levels − 1. */
   thresholds: ThresholdModel[];
   /** Largest number of levels in any cell of the map (1 + number of excited surfaces). */
   levels: number;

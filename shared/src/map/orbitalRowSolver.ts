@@ -72,6 +72,7 @@ export class OrbitalRowSolver {
       this.sweeps++;
       return pruferMismatch(mesh, lambda, Math.exp(s), odd) - target;
     };
+    void G;
     const lnTop = Math.log(lambda * this.depthPerLambda * 1.0001);
     const d0 = Math.min(Math.max(spread, 1e-9), 0.5);
     // bracket bookkeeping: lo has G > 0 (below the level), hi has G < 0
