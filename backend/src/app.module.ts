@@ -18,6 +18,7 @@ import { MapsModule } from './maps/maps.module';
 import { SpeciesModule } from './species/species.module';
 import { PinsModule } from './pins/pins.module';
 import { ViewingLinksModule } from './viewing-links/viewing-links.module';
+import { DemoModule } from './demo/demo.module';
 
 export interface AppModuleOptions {
   /** Replaces the system clock (tests move time forward with it). */
@@ -55,6 +56,7 @@ export class AppModule implements NestModule {
         MapsModule,
         PinsModule,
         ViewingLinksModule,
+        DemoModule,
       ],
     };
   }

@@ -13,12 +13,12 @@ async function main(command: string | undefined): Promise<void> {
       return;
     }
     case 'seed': {
-      const report = await seedDemoData(config.database);
+      const report = await seedDemoData(config.database, { reset: process.argv.includes('--reset') });
       console.log(`[fieldbound] ${config.database.name}: ${report}`);
       return;
     }
     default:
-      console.error('usage: db-cli migrate | seed');
+      console.error('usage: db-cli migrate | seed [--reset]');
       process.exit(2);
   }
 }
