@@ -14,6 +14,9 @@ function setup() {
 
 const problems = async () => [...(await screen.findByTestId('import-problems')).querySelectorAll('li')].map((li) => li.textContent);
 
+// antd modals render slowly under happy-dom on a loaded machine.
+vi.setConfig({ testTimeout: 20_000 });
+
 describe('ImportSetupDialog', () => {
   it('imports a pasted map file and hands over the validated setup once', async () => {
     const { onImport, paste, importButton } = setup();
