@@ -312,7 +312,7 @@ export function buildOrbitalModel(
       nodeSolves++;
       const solver = solverFor(row, nu, u);
       // the slope of the matching function at this row's previous root is a good Newton hint
-      const lnEps = solver.lnLevel(lambda, nu, guessG + 2 * u, spread, LN_TINY, spread < 1e-3 ? solver.lastSlope : NaN);
+      const lnEps = solver.lnLevel(lambda, nu, guessG + 2 * u, spread, LN_TINY, spread <= 0.5 ? solver.lastSlope : NaN);
       return lnEps - 2 * u;
     };
     // initial grid: row by row, node by node, each predicted from its neighbours

@@ -13,7 +13,7 @@ const LN_LAMBDA_TOL = 1e-14;
 /** Bound on |F''/(2F')| in ln ε used to stop the secant iteration (with a 1e-3 floor on e₀ below). */
 const SECANT_C = 10;
 /** Estimated |ln ε̃ error| at which a secant iterate is accepted (node values need ~1e-9). */
-const SECANT_ACCEPT = 1e-10;
+const SECANT_ACCEPT = 1e-9;
 
 /**
  * Solver for one row of a map surface: orbital m at fixed ρ_c = r_c√B (one field), any coupling
