@@ -47,6 +47,9 @@ describe('figure SVG', () => {
     const noSpecies = buildFigureSvg(source, { pins: true, species: false, caption: false, widthMm: 170, meta });
     expect(noSpecies.querySelector('.species')).toBeNull();
     expect(noSpecies.querySelector('.pins circle')).not.toBeNull();
+    // every text in the shipped font (d3 axes set sans-serif on their groups)
+    expect(fig.querySelector('.tick')!.getAttribute('font-family')).toBe("'IBM Plex Sans', sans-serif");
+    expect(fig.getAttribute('font-family')).toBe("'IBM Plex Sans', sans-serif");
     // the source still has everything
     expect(source.querySelector('.crosshair')).not.toBeNull();
     expect(source.querySelector('.pins')).not.toBeNull();
@@ -129,7 +132,7 @@ describe('figure PDF', () => {
     expect(textRuns('a₀³')).toEqual([{ kind: 'latin', text: 'a' }, { kind: 'sub', text: '0' }, { kind: 'super', text: '3' }]);
     const svg = mapViewSvg();
     const n = prepareTextForPdf(svg);
-    expect(n).toBe(1);
+    expect(n).toBe(2); // the tick label 10⁻⁶ and the axis label
     const label = [...svg.querySelectorAll('text')].at(-1)!;
     const spans = [...label.querySelectorAll('tspan')].map((t) => [t.textContent, t.getAttribute('dy'), t.getAttribute('font-family'), t.getAttribute('font-size')]);
     expect(spans).toEqual([

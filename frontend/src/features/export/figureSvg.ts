@@ -59,7 +59,7 @@ export function svgSize(svg: SVGSVGElement): { width: number; height: number } {
 
 /**
  * A standalone figure from the map view's SVG (the same d3 scene, cloned; the page is not touched):
- * interactive parts removed, pins and species kept or removed, a caption block appended below, the
+ * interactive parts removed, every text set in the shipped font, pins and species kept or removed, a caption block appended below, the
  * shipped font embedded as `@font-face` when given, printed size in millimetres with the drawing's own
  * coordinates as the viewBox. The figure metadata is added by `serializeFigure`.
  */
@@ -72,6 +72,10 @@ export function buildFigureSvg(source: SVGSVGElement, options: FigureOptions): S
   svg.removeAttribute('class');
   svg.setAttribute('xmlns', SVG_NS);
   svg.setAttribute('font-family', FIGURE_FONT_FAMILY);
+  // Text everywhere in the shipped font: d3 axes set font-family="sans-serif" on their groups, and CSS
+  // (font-family: inherit) does not travel with the file.
+  for (const el of svg.querySelectorAll('[font-family]')) el.setAttribute('font-family', FIGURE_FONT_FAMILY);
+  for (const el of svg.querySelectorAll<SVGElement>('[style*="font-family"]')) el.style.removeProperty('font-family');
   const doc = svg.ownerDocument;
 
   const totalHeight = height + (options.caption ? captionHeight(options.meta, width) : 0);

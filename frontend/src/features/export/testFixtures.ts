@@ -21,6 +21,7 @@ export function mapViewSvg(): SVGSVGElement {
 <g class="pins" data-export-layer="pins"><circle cx="120" cy="80" r="5" fill="#6A4C93"/></g>
 <g class="probe-marker"><circle r="7"/></g></g>
 <g class="crosshair"><line x1="10" x2="10" y1="0" y2="220"/></g><rect class="map-overlay" width="300" height="220" fill="transparent"/>
+<g class="tick" font-family="sans-serif" font-size="10"><text y="232">10⁻⁶</text></g>
 <text x="150" y="258" font-size="13">Polarizability α (a₀³) at 10⁻⁹</text></g></svg>`;
   document.body.appendChild(host);
   return host.querySelector('svg')!;
