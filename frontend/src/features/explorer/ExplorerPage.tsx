@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef, useState, type CSSProperties }
 import { useSearchParams } from 'react-router-dom';
 import { Button, Drawer, Select, Space, Tooltip, Typography } from 'antd';
 import { CompressOutlined, MenuFoldOutlined, MenuUnfoldOutlined } from '@ant-design/icons';
-import { defaultSetup, teslaToAtomic, validateSetup, type MapSetup, type Tesla } from '@fieldbound/shared';
+import { defaultSetup, teslaToAtomic, validateSetup, type BindingMapResult, type MapSetup, type Tesla } from '@fieldbound/shared';
 import { palette } from '../../theme/palette';
 import { ENERGY_UNIT_LABEL } from '../map-render/displayUnits';
 import type { ShownQuantity } from '../map-render/regionField';
@@ -33,7 +33,22 @@ export interface ExplorerPageProps {
   createContourWorker?: () => Worker;
   /** Longest a map pass may run before it is stopped with a message. Default 10 minutes. */
   timeoutMs?: number;
+  /** Map workers; default one per core (1…4). */
+  poolSize?: number;
   style?: CSSProperties;
+  /** Saved-maps seam: no setup panel and no save (viewing links, viewers); the probe stays. */
+  readOnly?: boolean;
+  /** Saved-maps seam: the valid setup of the form (null while it has errors), whenever it changes. */
+  onSetupChange?: (setup: MapSetup | null) => void;
+  /** Saved-maps seam: a full-grid computation finished (for the result summary, thumbnail and export). */
+  onComputed?: (computed: ExplorerComputed) => void;
+}
+
+/** What `onComputed` reports: the full-grid result, the setup it belongs to and its wall time. */
+export interface ExplorerComputed {
+  setup: MapSetup;
+  result: BindingMapResult;
+  fullMs: number | null;
 }
 
 const NO_SPECIES: readonly SpeciesMarker[] = [];
@@ -57,7 +72,11 @@ export function ExplorerPage({
   createEngineWorker: makeEngineWorker = createEngineWorker,
   createContourWorker: makeContourWorker = createContourWorker,
   timeoutMs = 600_000,
+  poolSize,
   style,
+  readOnly = false,
+  onSetupChange,
+  onComputed,
 }: ExplorerPageProps) {
   const [params, setParams] = useSearchParams();
   const fromUrl = useMemo(() => parseViewParams(params), []); // read once, when the page opens
@@ -71,7 +90,7 @@ export function ExplorerPage({
   const [workers, setWorkers] = useState<{ maps: EnginePool; probe: EnginePool; contours: ContourClient } | null>(null);
   useEffect(() => {
     const w = {
-      maps: new EnginePool({ createWorker: makeEngineWorker, size: defaultPoolSize(navigator.hardwareConcurrency) }),
+      maps: new EnginePool({ createWorker: makeEngineWorker, size: poolSize ?? defaultPoolSize(navigator.hardwareConcurrency) }),
       probe: new EnginePool({ createWorker: makeEngineWorker, size: 1 }),
       contours: new ContourClient(makeContourWorker),
     };
@@ -81,13 +100,22 @@ export function ExplorerPage({
       w.probe.dispose();
       w.contours.dispose();
     };
-  }, [makeEngineWorker, makeContourWorker]);
+  }, [makeEngineWorker, makeContourWorker, poolSize]);
 
   const cache = useRef(new ResultCache()).current;
   const computeOptions = useMemo(() => ({ timeoutMs }), [timeoutMs]);
   const base = useMapComputation(workers?.maps ?? null, applied, cache, computeOptions);
   const zoomed = useMemo(() => (sameWindow(view, setupWindow(applied)) ? null : windowSetup(applied, view)), [view, applied]);
   const windowComp = useMapComputation(workers?.maps ?? null, zoomed, cache, computeOptions);
+
+  // Saved-maps seams: report the form's valid setup and each finished full-grid computation.
+  const validDraft = useMemo(() => checkDraft(draft, applied).valid, [draft, applied]);
+  useEffect(() => onSetupChange?.(validDraft), [validDraft, onSetupChange]);
+  const { status: baseStatus, result: baseResult, resultSetup: baseResultSetup, resultPass: basePass } = base.state;
+  const baseFullMs = base.state.timings.fullMs;
+  useEffect(() => {
+    if (baseStatus === 'done' && basePass === 'full' && baseResult && baseResultSetup) onComputed?.({ setup: baseResultSetup, result: baseResult, fullMs: baseFullMs });
+  }, [baseStatus, basePass, baseResult, baseResultSetup, baseFullMs, onComputed]);
 
   const shown = applied.display.shown;
   const levels = applied.contours.levelsKelvin;
@@ -159,7 +187,7 @@ export function ExplorerPage({
 
   return (
     <div className="explorer-page" style={{ display: 'flex', height: 'calc(100vh - 48px)', minHeight: 420, background: palette.paper, ...style }}>
-      {panelOpen && (
+      {panelOpen && !readOnly && (
         <aside aria-label="Setup" style={{ width: 320, flex: 'none', overflowY: 'auto', padding: '8px 14px 24px', borderRight: `1px solid ${palette.unbound}`, background: '#fff' }}>
           <Space style={{ justifyContent: 'space-between', width: '100%' }}>
             <Typography.Title level={5} style={{ margin: '4px 0' }}>
@@ -174,7 +202,7 @@ export function ExplorerPage({
       )}
       <main style={{ flex: 1, minWidth: 0, display: 'flex', flexDirection: 'column' }}>
         <div style={{ display: 'flex', alignItems: 'center', gap: 12, padding: '6px 12px', borderBottom: `1px solid ${palette.unbound}`, background: '#fff', flexWrap: 'wrap' }}>
-          {!panelOpen && (
+          {!panelOpen && !readOnly && (
             <Tooltip title="Show the setup">
               <Button size="small" aria-label="Show the setup" icon={<MenuUnfoldOutlined />} onClick={() => setPanelOpen(true)} />
             </Tooltip>
@@ -193,16 +221,18 @@ export function ExplorerPage({
           <Typography.Text type="secondary" style={{ fontSize: 12 }}>
             {applied.grid.nAlpha} × {applied.grid.nField} grid · orbitals m = 0…{applied.orbitals.mMax} · energies in {ENERGY_UNIT_LABEL[applied.display.energyUnit]}
             {fullTiming.fullMs !== null ? ` · computed in ${(fullTiming.fullMs / 1000).toFixed(1)} s` : ''}
+            {fullTiming.fullMs !== null && fullTiming.firstPictureMs !== null && fullTiming.firstPictureMs < fullTiming.fullMs ? ` (first picture ${(fullTiming.firstPictureMs / 1000).toFixed(2)} s)` : ''}
             {base.state.resultPass === 'coarse' ? ' · showing the quick first pass' : ''}
           </Typography.Text>
         </div>
-        <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={setProbe} species={species}>
+        <div style={{ position: 'relative', flex: 1, minHeight: 0, display: 'flex' }}>
+          <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={setProbe} species={species} />
           <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={false} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} />
           <div style={{ position: 'absolute', top: 12, left: '50%', transform: 'translateX(-50%)', display: 'flex', flexDirection: 'column', gap: 8, alignItems: 'center' }}>
             <ComputeStatus state={activeComp.state} onCancel={activeComp.cancel} onRetry={activeComp.retry} what={activeComp === base ? 'the map' : 'the zoomed window'} />
             {geometryError && <ComputeStatus state={{ ...base.state, status: 'error', error: geometryError }} onCancel={() => {}} onRetry={base.retry} what="the contours" />}
           </div>
-        </MapView>
+        </div>
         <footer style={{ padding: '4px 12px', fontSize: 11.5, color: '#5b5d70', borderTop: `1px solid ${palette.unbound}`, background: '#fff' }}>
           Model estimate: an electron bound to a fixed polarizable atom in the adiabatic single-orbital approximation (one lowest-Landau-level orbital m at a time). Flags mark where it is doubtful: <b>cutoff-dominated</b> (m = 0 depends on the cutoff radius), <b>non-adiabatic</b> (ε/B &gt; 0.1). Binding weaker than the energy floor counts as unbound.
           {applied.motion.kind !== 'none' ? ' Ion motion is not applied to this map yet: regions show the fixed atom.' : ''}

@@ -1,4 +1,4 @@
-import { memo, useCallback, useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { memo, useCallback, useEffect, useId, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { select, zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3';
 import type { BindingMapResult, MapSetup } from '@fieldbound/shared';
 import { palette } from '../../theme/palette';
@@ -45,8 +45,6 @@ export interface MapViewProps {
   probe: ProbePoint | null;
   onProbe: (point: ProbePoint) => void;
   species: readonly SpeciesMarker[];
-  /** Floating overlays (legend, progress) positioned over the map. */
-  children?: ReactNode;
 }
 
 const MARGIN = { top: 14, right: 18, bottom: 46, left: 70 };
@@ -67,12 +65,13 @@ const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v
  * species and the probe; d3-zoom pans and zooms (the picture follows at once, the new window is reported after
  * the gesture settles); a crosshair reads α, B and the quantity under the cursor; a click probes a point.
  */
-export const MapView = memo(function MapView({ setup, view, onViewChange, layers, readout, probe, onProbe, species, children }: MapViewProps) {
+export const MapView = memo(function MapView({ setup, view, onViewChange, layers, readout, probe, onProbe, species }: MapViewProps) {
   const containerRef = useRef<HTMLDivElement>(null);
   const { width, height } = useElementSize(containerRef);
   const svgRef = useRef<SVGSVGElement>(null);
   const contentRef = useRef<SVGGElement>(null);
   const layersRef = useRef<SVGGElement>(null);
+  const layersBoxRef = useRef<HTMLDivElement>(null);
   const xAxisRef = useRef<SVGGElement>(null);
   const yAxisRef = useRef<SVGGElement>(null);
   const overlayRef = useRef<SVGRectElement>(null);
@@ -107,9 +106,10 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
     const t0 = performance.now();
     drawMapLayers(layersRef.current, projected, { prefix: `m${uid}` });
     contentRef.current?.removeAttribute('transform');
+    if (layersBoxRef.current) layersBoxRef.current.style.transform = '';
     if (overlayRef.current) select(overlayRef.current).property('__zoom', zoomIdentity);
     const ms = performance.now() - t0;
-    if (ms > 50) console.warn(`map drawing took ${ms.toFixed(0)} ms`);
+    if (import.meta.env.DEV && ms > 50) console.warn(`map drawing took ${ms.toFixed(0)} ms`);
   }, [projected, uid]);
 
   const drawAxes = useCallback(
@@ -134,6 +134,7 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
       .on('zoom', (event: { transform: ZoomTransform }) => {
         const t = event.transform;
         contentRef.current?.setAttribute('transform', t.toString());
+        if (layersBoxRef.current) layersBoxRef.current.style.transform = `translate(${t.x}px,${t.y}px) scale(${t.k})`;
         drawAxes(t);
         clearTimeout(timer);
         timer = setTimeout(() => {
@@ -178,17 +179,26 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
   return (
     <div ref={containerRef} className="map-view" style={{ position: 'relative', flex: 1, minHeight: 0, minWidth: 0, overflow: 'hidden', background: '#fff' }}>
       {width > 0 && (
-        <svg ref={svgRef} width={width} height={height} role="img" aria-label="Map of polarizability against magnetic field" style={{ display: 'block', fontFamily: 'inherit' }}>
+        // The computed layers live in their own <svg> inside a composited box: pan and zoom move that box with a CSS
+        // transform (no repaint of the contours per frame), and the crosshair above never repaints them either.
+        <div style={{ position: 'absolute', left: MARGIN.left, top: MARGIN.top, width: pw, height: ph, overflow: 'hidden', background: '#f6f5f1' }}>
+          <div ref={layersBoxRef} style={{ width: pw, height: ph, transformOrigin: '0 0', willChange: 'transform' }}>
+            <svg width={pw} height={ph} style={{ display: 'block' }} aria-hidden>
+              <g ref={layersRef} />
+            </svg>
+          </div>
+        </div>
+      )}
+      {width > 0 && (
+        <svg ref={svgRef} width={width} height={height} role="img" aria-label="Map of polarizability against magnetic field" style={{ position: 'absolute', left: 0, top: 0, display: 'block', fontFamily: 'inherit' }}>
           <defs>
             <clipPath id={`plot-${uid}`}>
               <rect width={pw} height={ph} />
             </clipPath>
           </defs>
           <g transform={`translate(${MARGIN.left},${MARGIN.top})`}>
-            <rect width={pw} height={ph} fill="#f6f5f1" />
             <g clipPath={`url(#plot-${uid})`}>
               <g ref={contentRef}>
-                <g ref={layersRef} />
                 <g className="field-bands">
                   {fieldBands.map((b) => (
                     <g key={b.label + b.y}>
@@ -282,7 +292,6 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
           <div>{cursorText ?? 'not computed here'}</div>
         </div>
       )}
-      {children}
     </div>
   );
 });

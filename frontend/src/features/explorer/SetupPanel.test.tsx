@@ -32,7 +32,8 @@ function typeInto(testId: string, text: string) {
   fireEvent.blur(input);
 }
 
-describe('SetupPanel unit conversions', () => {
+// antd forms render slowly in happy-dom (seconds on a busy machine): allow time, the checks themselves are exact.
+describe('SetupPanel unit conversions', { timeout: 30_000 }, () => {
   it('stores 10 Å³ typed as the polarizability minimum as 67.48… a₀³', () => {
     let last: SetupDraft | null = null;
     const initial = defaultSetup();
@@ -61,7 +62,7 @@ describe('SetupPanel unit conversions', () => {
   });
 });
 
-describe('SetupPanel validation messages', () => {
+describe('SetupPanel validation messages', { timeout: 30_000 }, () => {
   it('shows the setup rules’ message beside the field when the range is inverted', () => {
     render(<Harness initial={defaultSetup()} onDraft={() => {}} />);
     typeInto('alpha-max', '0.5');

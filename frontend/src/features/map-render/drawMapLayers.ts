@@ -7,6 +7,13 @@ export interface MapDrawIds {
   prefix: string;
 }
 
+/** Sets a (long) path only when it changed: re-setting an identical `d` still makes the browser re-parse it. */
+function setPath(el: SVGPathElement & { __path?: string }, d: string): void {
+  if (el.__path === d && el.getAttribute('d') !== null) return;
+  el.setAttribute('d', d);
+  el.__path = d;
+}
+
 /** Hatching spacing on the screen, px. */
 const HATCH_SPACING = 6;
 
@@ -88,7 +95,9 @@ export function drawMapLayers(root: SVGGElement, layers: readonly ProjectedLayer
     .join('path')
     .attr('class', (r) => `region region-${r.kind}${r.hatch ? ' region-hatch' : ''}`)
     .attr('data-count', (r) => (r.kind === 'count' ? r.count : null))
-    .attr('d', (r) => r.path)
+    .each(function (r) {
+      setPath(this as SVGPathElement, r.path);
+    })
     .attr('fill', (r) => (r.hatch ? `url(#${r.id}-hatch)` : r.fill));
 
   grid
@@ -96,7 +105,9 @@ export function drawMapLayers(root: SVGGElement, layers: readonly ProjectedLayer
     .data((d) => d.outlines)
     .join('path')
     .attr('class', 'region-outline')
-    .attr('d', (d) => d)
+    .each(function (d) {
+      setPath(this as SVGPathElement, d);
+    })
     .attr('fill', 'none')
     .attr('stroke', palette.ink)
     .attr('stroke-opacity', 0.6)
@@ -109,7 +120,9 @@ export function drawMapLayers(root: SVGGElement, layers: readonly ProjectedLayer
     .join('path')
     .attr('class', 'iso-line')
     .attr('data-level-kelvin', (d) => d.levelKelvin)
-    .attr('d', (d) => d.path)
+    .each(function (d) {
+      setPath(this as SVGPathElement, d.path);
+    })
     .attr('fill', 'none')
     .attr('stroke', palette.ink)
     .attr('stroke-width', 1.1)

@@ -44,6 +44,9 @@ export class ResultCache {
   }
 }
 
+/** Shortest interval between progress renders, ms. */
+const PROGRESS_RENDER_MS = 250;
+
 /** A coarse first pass pays off only when the full grid has at least four times its cells. */
 export const COARSE_SIDE = 64;
 function wantsCoarse(setup: MapSetup): boolean {
@@ -84,6 +87,7 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
     controller.current = abort;
     const started = performance.now();
     let firstPictureMs: number | null = null;
+    let lastProgress = -Infinity;
 
     const runPass = async (pass: 'coarse' | 'full', passSetup: MapSetup): Promise<BindingMapResult> => {
       const passKey = bindingInputsKey(passSetup);
@@ -95,7 +99,11 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
         signal: abort.signal,
         onProgress: (p) => {
           if (abort.signal.aborted) return;
-          const elapsedMs = performance.now() - passStart;
+          // At most a few renders a second: progress must never cost the page its smoothness.
+          const now = performance.now();
+          if (now - lastProgress < PROGRESS_RENDER_MS && p.done < p.total) return;
+          lastProgress = now;
+          const elapsedMs = now - passStart;
           const remainingMs = p.done >= Math.max(1, p.total * 0.02) ? (elapsedMs / p.done) * (p.total - p.done) : null;
           setState((s) => ({ ...s, progress: { pass, done: p.done, total: p.total, elapsedMs, remainingMs } }));
         },
