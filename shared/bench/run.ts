@@ -162,7 +162,8 @@ if (!args['no-write']) {
     ...rows.map((r) => `| ${r.join(' | ')} |`),
     '',
     `- Runs: ${runs.map((r) => `${r.ms.toFixed(0)} ms wall / ${r.cpuMs.toFixed(0)} ms CPU`).join('; ')} (after a 48 × 48 warm-up map); the faster run counts.`,
-    `- Stored: ${map.levelsPerOrbital} levels per orbital, ${statesStored} bound states; ${map.directSolves ?? 0} (orbital, cell) pairs fell back to a direct solve (MAP_FLAG.DIRECT_SOLVE); the map's own error estimate is ${fmt(map.maxRelError)}.`,
+    `- Stored: ${map.levelsPerOrbital} levels per orbital, ${statesStored} bound states; ${map.directSolves ?? 0} of ${map.cellCount * (map.mMax + 1)} (orbital, cell) pairs fell back to a direct solve (MAP_FLAG.DIRECT_SOLVE; the fallback is taken where the threshold uncertainty 2δ/(λ − λ_c) is too large, i.e. next to thresholds — docs/physics/maps.md §4). ` +
+      `The map's own error estimate (maxRelError) is ${fmt(map.maxRelError)}${map.maxRelError > 1e-6 ? ': it is the direct solver\'s own half-step estimate for a level within ~1e-5 of its threshold in a directly solved cell (where ε ∝ (λ − λ_c)² amplifies any error in λ_c); interpolated values are estimated below 5e-7 (docs/physics/maps.md §4)' : ''}.`,
     `- Accuracy: ${cmp.statesCompared} states at ${SAMPLES} seeded-random cells compared with \`levels\` (direct solves, ${directMsPerCell.toFixed(1)} ms per cell for all orbitals): worst ${fmt(cmp.worstRelError)}, ${cmp.mismatches.length} count/flag mismatches.`,
     `- Naive baseline (bench/naiveFiniteDifference.ts: uniform grid on [0, 18/κ_weakest + 6 max(1, ρ_c)], second-order differences, Sturm bisection): ${naiveSamples.length} seeded (cell, orbital) samples, grids doubled from 4096 points until every level is within 1e-6 of the direct solve; ` +
       `${measuredCount} converged (timed at the converged grid), ${naiveSamples.length - measuredCount} had not converged at 2²⁰ points (the time on that grid is counted: a lower bound). ` +

@@ -105,5 +105,6 @@ export function bindingMapDirect(setupIn: MapSetup, options: BindingMapOptions =
     flags,
     maxRelError,
     elapsedMs: Date.now() - t0,
+    directSolves: cellCount * (mMax + 1),
   };
 }
