@@ -2,6 +2,7 @@ import 'reflect-metadata';
 import { ConfigService } from '@nestjs/config';
 import { createApp } from './app.factory';
 import type { AppConfig } from './config/configuration';
+import { MailService } from './mail/mail.service';
 
 async function main(): Promise<void> {
   const app = await createApp();
@@ -19,6 +20,9 @@ async function main(): Promise<void> {
     throw error;
   }
   console.log(`[fieldbound] serving on http://${host}:${port}`);
+  if (app.get(MailService).usesFake) {
+    console.log(`[fieldbound] no FIELDBOUND_SMTP_URL: e-mail stays on this machine; read it at ${config.get('publicUrl', { infer: true })}/dev/mailbox`);
+  }
 }
 
 void main();

@@ -112,13 +112,14 @@ describe('POST /auth/sign-in', () => {
     };
     const known: number[] = [];
     const unknown: number[] = [];
-    for (let i = 0; i < 3; i++) {
+    for (let i = 0; i < 5; i++) {
       known.push(await time(account.email));
       unknown.push(await time(uniqueEmail('ghost')));
     }
-    const median = (xs: number[]) => xs.sort((a, b) => a - b)[1];
-    // Without the decoy verification the unknown case would answer in ~1/20 of the time.
-    expect(median(unknown)).toBeGreaterThan(median(known) * 0.5);
+    const median = (xs: number[]) => xs.sort((a, b) => a - b)[2];
+    // Without the decoy verification the unknown case answers in a few ms against ~150 ms; the
+    // generous bound keeps the test steady on a busy machine.
+    expect(median(unknown)).toBeGreaterThan(median(known) * 0.3);
   });
 });
 
