@@ -57,6 +57,8 @@ interface Spec {
   shA: number;
   uB: number;
   shB: number;
+  /** Threshold-relative: uLow = ln λ_c,ν(s) + uA, uHigh = ln λ_c,ν(s) + uB (shA, shB unused). */
+  rel: boolean;
 }
 
 interface Row {
@@ -135,7 +137,7 @@ export function buildOrbitalModel(
   const uA0 = geo.lnAlphaMin;
   const uB0 = geo.lnAlphaMax;
   const makeGroundRow = (s: number): Row => ({ s, solver: newSolver(s, lamMax(s) * (1 + 1e-9), settings.meshTolGround), thr: [0] });
-  const groundSpecs: Spec[] = [{ nu: 0, uA: uA0, shA: 1, uB: uB0, shB: 1 }];
+  const groundSpecs: Spec[] = [{ nu: 0, uA: uA0, shA: 1, uB: uB0, shB: 1, rel: false }];
   const groundSurface = buildGroup(
     groundSpecs,
     sA0,
@@ -215,13 +217,19 @@ export function buildOrbitalModel(
         spread = 1e-9;
       }
     };
-    const uTop = geo.lnAlphaMax;
-    // u-range: from nearThreshold·λ_c (estimated from the ends of the range) to ln λ_max(B)
+    // threshold-relative coordinate v = ln((λ − λ_c)/λ_c) = u − ln λ_c(s) from ln(nearThreshold) to
+    // the largest ln(λ_max/λ_c) of the map's rows: the strong-coupling turn (v ≈ 0) then sits at the
+    // same place in every row, so few rows are needed in s
     const probeLo = makeRow(sA, 0, []);
     const probeHi = makeRow(sB, 1, [probeLo]);
-    const lnLcMin = Math.min(Math.log(probeLo.thr[nu]), Math.log(probeHi.thr[nu]));
-    const uLo = Math.min(lnLcMin + Math.log(settings.nearThreshold), Math.log(lamMax(sA)) - 1);
-    const spec: Spec = { nu, uA: uLo, shA: 0, uB: uTop, shB: 1 };
+    let vTop = Math.log(lamMax(sB) / probeHi.thr[nu]);
+    for (let k = 1; k <= 32; k++) {
+      const sk = sA + ((sB - sA) * k) / 32;
+      const lc = probeLo.thr[nu] * Math.pow(probeHi.thr[nu] / probeLo.thr[nu], (sk - sA) / (sB - sA));
+      vTop = Math.max(vTop, Math.log(lamMax(sk) / lc));
+    }
+    vTop += 0.05; // margin for the interpolated threshold between the probes
+    const spec: Spec = { nu, uA: Math.log(settings.nearThreshold), shA: 0, uB: vTop, shB: 0, rel: true };
     const g = buildGroup([spec], sA, sB, (s, k, cur) => (k === 0 ? probeLo : k === cur.length - 1 ? probeHi : makeRow(s, k, cur)), null);
     surfaces.push(...g.surfaces);
     // threshold curve ln λ_c,ν(s) on the level's rows, refined (nested) to tolThreshold
@@ -300,14 +308,16 @@ export function buildOrbitalModel(
     const coefs: Float64Array[] = specs.map(() => new Float64Array(0));
     const tails: { u: number; s: number }[] = specs.map(() => ({ u: Infinity, s: Infinity }));
 
-    const uOf = (q: number, xi: number, s: number): number => {
+    const uOf = (q: number, xi: number, row: Row): number => {
       const sp = specs[q];
-      const lo = sp.uA + sp.shA * s;
-      return lo + ((xi + 1) / 2) * (sp.uB + sp.shB * s - lo);
+      const shift = sp.rel ? Math.log(row.thr[sp.nu]) : 0;
+      const lo = sp.rel ? shift + sp.uA : sp.uA + sp.shA * row.s;
+      const hi = sp.rel ? shift + sp.uB : sp.uB + sp.shB * row.s;
+      return lo + ((xi + 1) / 2) * (hi - lo);
     };
     const solveNode = (q: number, row: Row, xi: number, guessG: number, spread: number): number => {
       const nu = specs[q].nu;
-      const u = uOf(q, xi, row.s);
+      const u = uOf(q, xi, row);
       const lambda = (nu === 0 ? 0 : row.thr[nu]) + Math.exp(u);
       nodeSolves++;
       const solver = solverFor(row, nu, u);
@@ -458,7 +468,7 @@ export function buildOrbitalModel(
         const nu = sp.nu;
         const thrFine = nu === 0 ? 0 : fine.threshold(nu, Math.log(r.thr[nu]), 1e-9);
         for (const i of [0, U >> 1, U]) {
-          const u = uOf(q, xs[i], r.s);
+          const u = uOf(q, xs[i], r);
           const sol = solverFor(r, nu, u);
           const check = sol === r.solver ? fine : newSolver(r.s, sol.lambdaRef, settings.meshTolFar, 2);
           const lambda = (sol === r.solver ? thrFine : nu === 0 ? 0 : r.thr[nu]) + Math.exp(u);
@@ -478,6 +488,7 @@ export function buildOrbitalModel(
         shA: sp.shA,
         uB: sp.uB,
         shB: sp.shB,
+        relThreshold: sp.rel,
         degU: U,
         degS: S,
         coef: coefs[q],

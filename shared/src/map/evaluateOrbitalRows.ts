@@ -116,8 +116,9 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
         exOn[nu] = 0;
         if (sf !== undefined && s >= sf.sA - 1e-12) {
           rowCoefficients(sf, yOf(Math.max(s, sf.sA), sf.sA, sf.sB), exCoef[nu - 1]);
-          exLo[nu] = sf.uA + sf.shA * s;
-          exHi[nu] = sf.uB + sf.shB * s;
+          const shift = sf.relThreshold ? Math.log(lambdaC[nu]) : 0;
+          exLo[nu] = sf.relThreshold ? shift + sf.uA : sf.uA + sf.shA * s;
+          exHi[nu] = sf.relThreshold ? shift + sf.uB : sf.uB + sf.shB * s;
           exOn[nu] = 1;
         }
       }

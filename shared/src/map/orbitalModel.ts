@@ -23,6 +23,11 @@ export interface SurfaceModel {
   shA: number;
   uB: number;
   shB: number;
+  /**
+   * Excited levels: the ends are relative to the threshold, uLow = ln λ_c,ν(s) + uA and
+   * uHigh = ln λ_c,ν(s) + uB, i.e. ξ is affine in v = ln((λ − λ_c)/λ_c).
+   */
+  relThreshold: boolean;
   degU: number;
   degS: number;
   /** Chebyshev coefficients c[i·(degS + 1) + k] of G(ξ, y). */
