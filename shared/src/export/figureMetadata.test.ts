@@ -119,3 +119,16 @@ describe('SVG <metadata>', () => {
 function u32(v: number): number[] {
   return [(v >>> 24) & 255, (v >>> 16) & 255, (v >>> 8) & 255, v & 255];
 }
+
+describe('reopening a figure as a setup', () => {
+  it('finds the setup in an exported PNG and SVG, and passes JSON through', async () => {
+    const { importFileText } = await import('./figureSetupText.js');
+    const png = insertPngTextChunks(TINY_PNG, pngFigureEntries(meta));
+    expect(importFileText(png)).toEqual({ kind: 'png-figure', text: canonicalJson(setup) });
+    const svg = utf8Encode(`<?xml version="1.0"?><svg xmlns="http://www.w3.org/2000/svg">${svgMetadataElement(meta)}</svg>`);
+    expect(importFileText(svg)).toEqual({ kind: 'svg-figure', text: canonicalJson(setup) });
+    expect(importFileText(utf8Encode('\ufeff{"a":1}'))).toEqual({ kind: 'json', text: '{"a":1}' });
+    expect(importFileText(TINY_PNG).kind).toBe('figure-without-setup');
+    expect(importFileText(utf8Encode('<svg/>')).kind).toBe('figure-without-setup');
+  });
+});

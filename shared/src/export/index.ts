@@ -13,3 +13,4 @@ export * from './pngTextChunks.js';
 export * from './xmlEscape.js';
 export * from './figureMetadata.js';
 export * from './resultFingerprint.js';
+export * from './figureSetupText.js';

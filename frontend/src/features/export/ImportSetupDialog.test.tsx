@@ -1,6 +1,6 @@
 import { describe, expect, it, vi } from 'vitest';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { defaultSetup, ENGINE_VERSION, mapJsonText } from '@fieldbound/shared';
+import { base64ToBytes, defaultSetup, ENGINE_VERSION, figureMetadata, insertPngTextChunks, mapJsonText, pngFigureEntries } from '@fieldbound/shared';
 import { ImportSetupDialog } from './ImportSetupDialog';
 
 function setup() {
@@ -68,6 +68,20 @@ describe('ImportSetupDialog', () => {
     await waitFor(() => expect(onImport).toHaveBeenCalledTimes(1));
     expect(onImport.mock.calls[0][0]).toEqual(defaultSetup());
     expect(screen.getByText('lab-setup.json')).toBeTruthy();
+  });
+
+  it('reopens an exported PNG figure from the setup recorded in it, and refuses a PNG without one', async () => {
+    const { onImport } = setup();
+    const tiny = base64ToBytes('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==');
+    const s = { ...defaultSetup(), orbitals: { mMax: 3 }, display: { ...defaultSetup().display, shown: { kind: 'orbital' as const, m: 1 } } };
+    const png = insertPngTextChunks(tiny, pngFigureEntries(figureMetadata(s, { engineVersion: ENGINE_VERSION, date: '2026-12-02', title: 'fig' })));
+    fireEvent.change(screen.getByTestId('import-setup-file'), { target: { files: [new File([png as BlobPart], 'figure.png', { type: 'image/png' })] } });
+    await waitFor(() => expect(onImport).toHaveBeenCalledTimes(1));
+    expect(onImport.mock.calls[0][0]).toEqual(s);
+    expect(screen.getByText('figure.png (the setup recorded in the figure)')).toBeTruthy();
+    fireEvent.change(screen.getByTestId('import-setup-file'), { target: { files: [new File([tiny as BlobPart], 'photo.png', { type: 'image/png' })] } });
+    expect(await problems()).toEqual(['this PNG carries no Fieldbound setup (it was not exported by Fieldbound, or its text chunks were removed)']);
+    expect(onImport).toHaveBeenCalledTimes(1);
   });
 
   it('the Import button stays disabled until there is text', () => {

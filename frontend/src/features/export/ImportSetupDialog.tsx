@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Alert, Button, Input, Modal, Space, Typography } from 'antd';
 import { UploadOutlined } from '@ant-design/icons';
-import { ENGINE_VERSION, importMapJson, type ImportedMap, type ImportProblem, type MapSetup } from '@fieldbound/shared';
+import { ENGINE_VERSION, importFileText, importMapJson, type ImportedMap, type ImportProblem, type MapSetup } from '@fieldbound/shared';
 
 /** Largest file the dialog reads (a map file with results can be large; the setup alone is a few kB). */
 export const IMPORT_MAX_BYTES = 300 * 1024 * 1024;
@@ -14,8 +14,8 @@ export interface ImportSetupDialogProps {
 }
 
 /**
- * Import of a setup from a JSON file written by the export (or a bare setup), chosen as a file or
- * pasted. Validated with the same rules as the server before anything happens; every problem is listed
+ * Import of a setup from a JSON file written by the export (or a bare setup), or from an exported PNG
+ * or SVG figure (which records its setup), chosen as a file or pasted. Validated with the same rules as the server before anything happens; every problem is listed
  * with where it is. `onImport` is called only for a valid setup.
  */
 export function ImportSetupDialog({ open, onClose, onImport }: ImportSetupDialogProps) {
@@ -38,10 +38,15 @@ export function ImportSetupDialog({ open, onClose, onImport }: ImportSetupDialog
     }
     setBusy(true);
     try {
-      const content = await file.text();
-      setText(content.length > 200_000 ? '' : content);
-      setSource(file.name);
-      runImport(content);
+      const found = importFileText(new Uint8Array(await file.arrayBuffer()));
+      setSource(found.kind === 'json' ? file.name : `${file.name} (the setup recorded in the figure)`);
+      if (found.text === null) {
+        setText('');
+        setProblems([{ path: '(file)', message: found.message }]);
+        return;
+      }
+      setText(found.text.length > 200_000 ? '' : found.text);
+      runImport(found.text);
     } catch (e) {
       setProblems([{ path: '(file)', message: `could not read ${file.name}: ${(e as Error).message}` }]);
     } finally {
@@ -77,7 +82,7 @@ export function ImportSetupDialog({ open, onClose, onImport }: ImportSetupDialog
       }
     >
       <Typography.Paragraph type="secondary">
-        Choose a JSON file exported from a map (setup and results) or a setup on its own, or paste its text. It is checked with the same rules as the server before a map is created.
+        Choose a JSON file exported from a map (setup and results), a setup on its own, or a PNG or SVG figure exported from a map (its setup is recorded in the file), or paste JSON text. It is checked with the same rules as the server before a map is created.
       </Typography.Paragraph>
       <Space style={{ marginBottom: 12 }}>
         <Button icon={<UploadOutlined />} onClick={() => document.getElementById('import-setup-file')?.click()}>
@@ -87,7 +92,7 @@ export function ImportSetupDialog({ open, onClose, onImport }: ImportSetupDialog
           id="import-setup-file"
           data-testid="import-setup-file"
           type="file"
-          accept=".json,application/json"
+          accept=".json,application/json,.png,image/png,.svg,image/svg+xml"
           style={{ display: 'none' }}
           onChange={(e) => {
             const file = e.target.files?.[0];
