@@ -1,10 +1,10 @@
-import { Alert, Button, Form, Input, Result, Typography } from 'antd';
+import { Alert, Button, Form, Input, Result } from 'antd';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useForgotPassword } from '../api/auth';
-import { useMailbox } from '../api/mailbox';
 import { AuthCard } from '../components/AuthCard';
 import { applyServerErrors, emailRules } from '../components/forms';
+import { LocalMailboxHint } from '../components/LocalMailboxHint';
 
 export function ForgotPasswordPage() {
   const forgot = useForgotPassword();
@@ -55,16 +55,5 @@ export function ForgotPasswordPage() {
         </Button>
       </Form>
     </AuthCard>
-  );
-}
-
-/** On development servers the e-mail goes to the local mail fake: say where to read it. */
-export function LocalMailboxHint() {
-  const { data } = useMailbox();
-  if (!data?.available) return null;
-  return (
-    <Typography.Text type="secondary">
-      This server keeps e-mail locally: <Link to="/dev/mailbox">open the local mailbox</Link>.
-    </Typography.Text>
   );
 }

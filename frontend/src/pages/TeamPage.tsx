@@ -8,6 +8,7 @@ import { InvitationsTable } from '../features/team/InvitationsTable';
 import { InviteForm } from '../features/team/InviteForm';
 import { MembersTable } from '../features/team/MembersTable';
 import { useCurrentTeam } from '../state/currentTeam';
+import { LocalMailboxHint } from '../components/LocalMailboxHint';
 
 /** `/team`: the current team's members, invitations and activity. */
 export function TeamPage() {
@@ -36,6 +37,9 @@ export function TeamPage() {
           {isOwner && (
             <Card title="Invite a colleague" size="small">
               <InviteForm onInvite={(values) => invite.mutateAsync(values)} />
+              <div style={{ marginTop: 8 }}>
+                <LocalMailboxHint />
+              </div>
             </Card>
           )}
           <MembersTable
