@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Alert, Button, Checkbox, Form, Input, InputNumber, Modal, Segmented, Space, Typography } from 'antd';
-import type { MapSetup } from '@fieldbound/shared';
+import { ENGINE_VERSION, figureMetadata, type MapSetup } from '@fieldbound/shared';
 import { exportFigure, figureHeightMm, type FigureFormat, type FigureRequest } from './exportFigure';
 import { pngPixelSize } from './figurePng';
 
@@ -38,7 +38,8 @@ export function FigureExportModal({ open, onClose, setup, title, getFigureSvg, n
   let sizeProblem: string | null = null;
   if (source) {
     try {
-      const h = figureHeightMm(source, request.widthMm, request.caption);
+      const meta = figureMetadata(setup, { engineVersion: ENGINE_VERSION, date: now().toISOString(), title: request.title });
+      const h = figureHeightMm(source, request.widthMm, request.caption, meta);
       sizeText = `${request.widthMm} × ${Math.round(h)} mm`;
       if (request.format === 'png') {
         const px = pngPixelSize(request.widthMm, h, request.dpi);
