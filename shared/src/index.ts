@@ -11,3 +11,4 @@ export * from './levels/index.js';
 export * from './version.js';
 export * from './export/index.js';
 export * from './methods/index.js';
+export * from './motion/index.js';

@@ -1,0 +1,119 @@
+/**
+ * Vectorised moving-ion classification of a whole binding map (allocation-free
+ * inner loop). Same grid and state layout as `BindingMapResult`:
+ * state (m, ν) of cell c at `(m · levelsPerOrbital + ν) · cellCount + c`,
+ * cell c = j · nAlpha + i in row j of field `fieldsAu[j]`.
+ */
+import { STATE_CLASS } from '../map/mapTypes.js';
+import { classifyWidthCode } from './classifyWidth.js';
+import { localShapeNumberStrided } from './localShapeNumber.js';
+import { transverseEnergyAt, type MotionSettings } from './motionSettings.js';
+import { stateWidthCore, WIDTH_FLAG } from './stateWidth.js';
+import { criticalTransverseEnergy, thermalFractionsInto } from './thermalEnsemble.js';
+
+/** Binding energies of a map (the fields of `BindingMapResult` this needs). */
+export interface CellBindings {
+  /** ε in hartree per state; 0 where the state does not exist. */
+  bindingHartree: Float64Array;
+  cellCount: number;
+  nAlpha: number;
+  mMax: number;
+  levelsPerOrbital: number;
+  /** B (a.u.) per row. */
+  fieldsAu: Float64Array;
+}
+
+/** Output buffers of {@link classifyCells} (reusable across calls). */
+export interface CellMotionOutput {
+  /** STATE_CLASS code per state (NONE where there is no state). */
+  stateClass: Uint8Array;
+  /** Γ in hartree per state (0 = bound without decay channel; +Infinity = destroyed; NaN = no state). */
+  widthHartree: Float64Array;
+  /** WIDTH_FLAG bits per state. */
+  flags: Uint8Array;
+  /** Number of bound states per cell. */
+  survivors: Uint16Array;
+  /** With a temperature: fractions bound/resonance/unbound at 3·state + k; else null. */
+  fractions: Float32Array | null;
+}
+
+/** Allocate output buffers for a map (fractions only for the thermal mode). */
+export function allocateCellMotionOutput(map: CellBindings, settings: MotionSettings): CellMotionOutput {
+  const n = map.bindingHartree.length;
+  return {
+    stateClass: new Uint8Array(n),
+    widthHartree: new Float64Array(n),
+    flags: new Uint8Array(n),
+    survivors: new Uint16Array(map.cellCount),
+    fractions: settings.mode === 'thermal' ? new Float32Array(3 * n) : null,
+  };
+}
+
+const w = new Float64Array(3);
+
+/**
+ * Classify every state of every cell for the given motion settings (model.md §4):
+ * width from the fast table with recoil, class by Γ < ħ/τ → bound, destroyed or
+ * Γ ≥ ε → unbound, else resonance; survivors = number of bound states per cell.
+ * For a temperature, width and class are at E⊥ = kT and the fractions come from
+ * the critical energies E_b, E_u of each state.
+ *
+ * Cost (measured, shared/bench/motion.bench.ts): see docs/physics/moving-ion.md.
+ * Binding energies are not recomputed: changing the motion settings or τ only
+ * reruns this.
+ *
+ * @example
+ * const out = allocateCellMotionOutput(map, settings);
+ * classifyCells(map, settings, out); // out.stateClass, out.survivors, …
+ */
+export function classifyCells(map: CellBindings, settings: MotionSettings, out: CellMotionOutput): void {
+  const { bindingHartree: eps, cellCount, nAlpha, mMax, levelsPerOrbital: L, fieldsAu } = map;
+  const nField = fieldsAu.length;
+  const M = settings.ionMass;
+  const thermal = settings.mode === 'thermal';
+  const hbarOverTau = settings.hbarOverTau;
+  const stride = L * cellCount;
+  const fr = out.fractions;
+  out.survivors.fill(0);
+  for (let j = 0; j < nField; j++) {
+    const B = fieldsAu[j]!;
+    const ePerp = thermal ? settings.kT : transverseEnergyAt(settings, B);
+    const omega = B / M;
+    const sqrtB = Math.sqrt(B);
+    const F = B * Math.sqrt((2 * ePerp) / M);
+    const c0 = j * nAlpha;
+    for (let m = 0; m <= mMax; m++) {
+      for (let nu = 0; nu < L; nu++) {
+        const rowBase = (m * L + nu) * cellCount;
+        for (let c = c0; c < c0 + nAlpha; c++) {
+          const idx = rowBase + c;
+          const e = eps[idx]!;
+          if (!(e > 0)) {
+            out.stateClass[idx] = STATE_CLASS.NONE;
+            out.widthHartree[idx] = NaN;
+            out.flags[idx] = WIDTH_FLAG.NO_STATE;
+            if (fr) {
+              fr[3 * idx] = 0;
+              fr[3 * idx + 1] = 0;
+              fr[3 * idx + 2] = 1;
+            }
+            continue;
+          }
+          const p = localShapeNumberStrided(eps, nu * cellCount + c, stride, mMax, m);
+          const bits = stateWidthCore(e, m, p, sqrtB, F, ePerp, omega, w);
+          const g = w[0]!;
+          const code = classifyWidthCode(g, e, hbarOverTau, bits);
+          out.stateClass[idx] = code;
+          out.widthHartree[idx] = g;
+          out.flags[idx] = bits;
+          if (code === STATE_CLASS.BOUND) out.survivors[c]++;
+          if (fr) {
+            const eb = criticalTransverseEnergy(e, m, p, B, M, hbarOverTau);
+            const eu = criticalTransverseEnergy(e, m, p, B, M, e);
+            thermalFractionsInto(eb, eu, settings.kT, omega, fr, 3 * idx);
+          }
+        }
+      }
+    }
+  }
+}

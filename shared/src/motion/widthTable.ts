@@ -1,0 +1,137 @@
+/**
+ * Fast evaluation of the committed width table (generated offline by the exact
+ * zero-range solver, shared/scripts/width-table/): y = ln(Γ/ε) and e = E_r/ε as
+ * functions of the orbital m, the local shape number p and ξ = ε/(F l).
+ *
+ * Interpolation: g = y + ξ² bilinearly in ξ and 1/p (g is smooth where y falls
+ * like −ξ²). Beyond the large-ξ end ξ₁ = 11.5: y = y₁ − (ξ² − ξ₁²) + b ln(ξ/ξ₁)
+ * (b the fitted slope of g against ln ξ), e + 1 ∝ ξ^(−2) (second-order Stark
+ * shift). Below ξ = 1, or where a bracketing node has no state, the state is
+ * destroyed. m > 16 or p outside [2, 9] are evaluated at the nearest table edge
+ * and flagged outside (never silently clamped).
+ *
+ * Source: the project's exact solver (../exact/zeroRangeSolver.ts), generator
+ * version in WIDTH_TABLE_GENERATOR.
+ */
+import {
+  WIDTH_TABLE_B,
+  WIDTH_TABLE_E,
+  WIDTH_TABLE_G,
+  WIDTH_TABLE_M,
+  WIDTH_TABLE_P,
+  WIDTH_TABLE_XI,
+} from './table/widthTableData.js';
+
+const NM = WIDTH_TABLE_M.length;
+const NP = WIDTH_TABLE_P.length;
+const NX = WIDTH_TABLE_XI.length;
+const G = Float64Array.from(WIDTH_TABLE_G);
+const EE = Float64Array.from(WIDTH_TABLE_E);
+const BB = Float64Array.from(WIDTH_TABLE_B);
+const INV_P = Float64Array.from(WIDTH_TABLE_P, (p) => 1 / p);
+const XI = Float64Array.from(WIDTH_TABLE_XI);
+const P_MIN = WIDTH_TABLE_P[0]!;
+const P_MAX = WIDTH_TABLE_P[NP - 1]!;
+const P_STEP = WIDTH_TABLE_P[1]! - P_MIN;
+const XI_MIN = XI[0]!;
+const XI_MAX = XI[NX - 1]!;
+// ξ grid: uniform fine part then uniform coarse part
+const FINE_STEP = XI[1]! - XI[0]!;
+let fineCount = 1;
+while (fineCount < NX && Math.abs(XI[fineCount]! - XI[fineCount - 1]! - FINE_STEP) < 1e-9) fineCount++;
+const XI_SPLIT = XI[fineCount - 1]!;
+const COARSE_STEP = XI[fineCount]! - XI[fineCount - 1]!;
+
+/** Largest orbital in the table. */
+export const WIDTH_TABLE_M_MAX = NM - 1;
+/** Table range of the shape number p and of ξ. */
+export const WIDTH_TABLE_RANGE = { pMin: P_MIN, pMax: P_MAX, xiMin: XI_MIN, xiMax: XI_MAX } as const;
+
+/** Status bits returned by {@link widthTableInto}. */
+export const TABLE_STATUS = {
+  /** ξ below the table or a bracketing node without a state: destroyed. */
+  DESTROYED: 1,
+  /** m or p outside the table: evaluated at the nearest edge. */
+  OUTSIDE: 2,
+  /** ξ beyond the large-ξ end: asymptotic continuation. */
+  CONTINUED: 4,
+} as const;
+
+/**
+ * Evaluate the table: writes out[0] = y = ln(Γ/ε), out[1] = e = E_r/ε and
+ * returns TABLE_STATUS bits (0 = inside the table). Allocation-free.
+ *
+ * Domain: m integer ≥ 0, p > 0, ξ > 0 (NaN in → NaN out, DESTROYED).
+ *
+ * @example
+ * const out = new Float64Array(2);
+ * widthTableInto(0, 9, 4, out); // 0; out[0] ≈ ln(1.39e−7) = −15.79, out[1] ≈ −1.0243
+ */
+export function widthTableInto(m: number, p: number, xi: number, out: Float64Array): number {
+  let status = 0;
+  if (!(xi >= XI_MIN) || !(p > 0) || !(m >= 0)) {
+    out[0] = NaN;
+    out[1] = NaN;
+    return TABLE_STATUS.DESTROYED;
+  }
+  let im = m;
+  if (im > NM - 1) {
+    im = NM - 1;
+    status |= TABLE_STATUS.OUTSIDE;
+  }
+  let pp = p;
+  if (pp < P_MIN - 1e-9) {
+    pp = P_MIN;
+    status |= TABLE_STATUS.OUTSIDE;
+  } else if (pp > P_MAX + 1e-9) {
+    pp = P_MAX;
+    status |= TABLE_STATUS.OUTSIDE;
+  }
+  let jp = Math.floor((pp - P_MIN) / P_STEP);
+  if (jp > NP - 2) jp = NP - 2;
+  if (jp < 0) jp = 0;
+  const wp = (1 / pp - INV_P[jp]!) / (INV_P[jp + 1]! - INV_P[jp]!);
+  const base0 = (im * NP + jp) * NX;
+  const base1 = base0 + NX;
+  if (xi > XI_MAX) {
+    const k = NX - 1;
+    const g1 = (1 - wp) * G[base0 + k]! + wp * G[base1 + k]!;
+    const e1 = (1 - wp) * EE[base0 + k]! + wp * EE[base1 + k]!;
+    const b = (1 - wp) * BB[im * NP + jp]! + wp * BB[im * NP + jp + 1]!;
+    if (!Number.isFinite(g1)) {
+      out[0] = NaN;
+      out[1] = NaN;
+      return status | TABLE_STATUS.DESTROYED;
+    }
+    out[0] = g1 - xi * xi + b * Math.log(xi / XI_MAX);
+    const r = XI_MAX / xi;
+    out[1] = -1 + (e1 + 1) * r * r;
+    return status | TABLE_STATUS.CONTINUED;
+  }
+  let ix: number;
+  if (xi <= XI_SPLIT) {
+    ix = Math.floor((xi - XI_MIN) / FINE_STEP);
+  } else {
+    ix = fineCount - 1 + Math.floor((xi - XI_SPLIT) / COARSE_STEP);
+  }
+  if (ix > NX - 2) ix = NX - 2;
+  if (ix < 0) ix = 0;
+  const x0 = XI[ix]!;
+  const wx = (xi - x0) / (XI[ix + 1]! - x0);
+  const g00 = G[base0 + ix]!;
+  const g01 = G[base0 + ix + 1]!;
+  const g10 = G[base1 + ix]!;
+  const g11 = G[base1 + ix + 1]!;
+  // a corner without a state makes the point destroyed (NaN propagates)
+  const g = (1 - wp) * ((1 - wx) * g00 + wx * g01) + wp * ((1 - wx) * g10 + wx * g11);
+  if (!Number.isFinite(g)) {
+    out[0] = NaN;
+    out[1] = NaN;
+    return status | TABLE_STATUS.DESTROYED;
+  }
+  out[0] = g - xi * xi;
+  out[1] =
+    (1 - wp) * ((1 - wx) * EE[base0 + ix]! + wx * EE[base0 + ix + 1]!) +
+    wp * ((1 - wx) * EE[base1 + ix]! + wx * EE[base1 + ix + 1]!);
+  return status;
+}
