@@ -1,8 +1,11 @@
 import { App as AntdApp } from 'antd';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { render } from '@testing-library/react';
+import { configure, render } from '@testing-library/react';
 import type { ReactElement } from 'react';
 import { MemoryRouter } from 'react-router-dom';
+
+// findBy…/waitFor wait up to 5 s: antd renders slowly when the machine is busy.
+configure({ asyncUtilTimeout: 5000 });
 
 /** Renders with a fresh query client (no retries), antd's App context and a router at `path`. */
 export function renderWithProviders(ui: ReactElement, { path = '/' }: { path?: string } = {}) {

@@ -15,7 +15,7 @@ function WhereAmI() {
   return <div data-testid="where">{location.pathname + location.search}</div>;
 }
 
-describe('RequireAuth', () => {
+describe('RequireAuth', { timeout: 20_000 }, () => {
   it('sends a signed-out visitor to /sign-in with the page they wanted in ?next=', async () => {
     vi.stubGlobal('fetch', vi.fn(async () => jsonResponse(401, { statusCode: 401, code: 'refresh_token_missing', message: 'no session' })));
     renderWithProviders(

@@ -12,7 +12,8 @@ function fill(label: string, value: string) {
   fireEvent.change(screen.getByLabelText(label), { target: { value } });
 }
 
-describe('SignInForm', () => {
+// antd's first render is slow on a busy 2-core machine.
+describe('SignInForm', { timeout: 20_000 }, () => {
   it('shows "Enter your e-mail address." and "Enter your password." beside the empty fields and does not submit', async () => {
     const onSubmit = vi.fn(async () => undefined);
     renderWithProviders(<SignInForm onSubmit={onSubmit} />);

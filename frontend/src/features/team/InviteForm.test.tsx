@@ -17,7 +17,8 @@ function sent(email: string, emailSent = true): SentInvitation {
   };
 }
 
-describe('InviteForm', () => {
+// antd's first render is slow on a busy 2-core machine.
+describe('InviteForm', { timeout: 20_000 }, () => {
   it('asks for an address when it is empty and does not send', async () => {
     const onInvite = vi.fn(async () => sent('x'));
     renderWithProviders(<InviteForm onInvite={onInvite} />);
