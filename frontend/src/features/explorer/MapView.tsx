@@ -71,7 +71,6 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
   const svgRef = useRef<SVGSVGElement>(null);
   const contentRef = useRef<SVGGElement>(null);
   const layersRef = useRef<SVGGElement>(null);
-  const layersBoxRef = useRef<HTMLDivElement>(null);
   const xAxisRef = useRef<SVGGElement>(null);
   const yAxisRef = useRef<SVGGElement>(null);
   const overlayRef = useRef<SVGRectElement>(null);
@@ -106,7 +105,6 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
     const t0 = performance.now();
     drawMapLayers(layersRef.current, projected, { prefix: `m${uid}` });
     contentRef.current?.removeAttribute('transform');
-    if (layersBoxRef.current) layersBoxRef.current.style.transform = '';
     if (overlayRef.current) select(overlayRef.current).property('__zoom', zoomIdentity);
     const ms = performance.now() - t0;
     if (import.meta.env.DEV && ms > 50) console.warn(`map drawing took ${ms.toFixed(0)} ms`);
@@ -134,7 +132,6 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
       .on('zoom', (event: { transform: ZoomTransform }) => {
         const t = event.transform;
         contentRef.current?.setAttribute('transform', t.toString());
-        if (layersBoxRef.current) layersBoxRef.current.style.transform = `translate(${t.x}px,${t.y}px) scale(${t.k})`;
         drawAxes(t);
         clearTimeout(timer);
         timer = setTimeout(() => {
@@ -179,17 +176,7 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
   return (
     <div ref={containerRef} className="map-view" style={{ position: 'relative', flex: 1, minHeight: 0, minWidth: 0, overflow: 'hidden', background: '#fff' }}>
       {width > 0 && (
-        // The computed layers live in their own <svg> inside a composited box: pan and zoom move that box with a CSS
-        // transform (no repaint of the contours per frame), and the crosshair above never repaints them either.
-        <div style={{ position: 'absolute', left: MARGIN.left, top: MARGIN.top, width: pw, height: ph, overflow: 'hidden', background: '#f6f5f1' }}>
-          <div ref={layersBoxRef} style={{ width: pw, height: ph, transformOrigin: '0 0', willChange: 'transform' }}>
-            <svg width={pw} height={ph} style={{ display: 'block' }} aria-hidden>
-              <g ref={layersRef} />
-            </svg>
-          </div>
-        </div>
-      )}
-      {width > 0 && (
+        // The figure: one self-contained <svg> (layers, bands, species, probe, axes) that exports can serialise as is.
         <svg ref={svgRef} width={width} height={height} role="img" aria-label="Map of polarizability against magnetic field" style={{ position: 'absolute', left: 0, top: 0, display: 'block', fontFamily: 'inherit' }}>
           <defs>
             <clipPath id={`plot-${uid}`}>
@@ -197,8 +184,10 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
             </clipPath>
           </defs>
           <g transform={`translate(${MARGIN.left},${MARGIN.top})`}>
+            <rect width={pw} height={ph} fill="#f6f5f1" />
             <g clipPath={`url(#plot-${uid})`}>
               <g ref={contentRef}>
+                <g ref={layersRef} />
                 <g className="field-bands">
                   {fieldBands.map((b) => (
                     <g key={b.label + b.y}>
@@ -235,13 +224,29 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
                   </g>
                 )}
               </g>
-              {cursor && (
+            </g>
+            <rect width={pw} height={ph} fill="none" stroke={palette.ink} strokeOpacity={0.5} pointerEvents="none" />
+            <g ref={xAxisRef} transform={`translate(0,${ph})`} />
+            <g ref={yAxisRef} />
+            <text x={pw / 2} y={ph + 38} textAnchor="middle" fontSize={13} fill={palette.ink}>
+              Polarizability α ({ALPHA_UNIT_LABEL[alphaUnit]})
+            </text>
+            <text transform={`translate(${-54},${ph / 2}) rotate(-90)`} textAnchor="middle" fontSize={13} fill={palette.ink}>
+              Magnetic field B ({FIELD_UNIT_LABEL[fieldUnit]})
+            </text>
+          </g>
+        </svg>
+      )}
+      {width > 0 && (
+        // Crosshair and pointer input on a separate <svg> above the figure: moving the crosshair never repaints the map.
+        <svg width={width} height={height} aria-hidden style={{ position: 'absolute', left: 0, top: 0, display: 'block' }}>
+          <g transform={`translate(${MARGIN.left},${MARGIN.top})`}>
+            {cursor && (
                 <g pointerEvents="none" className="crosshair">
                   <line x1={cursor.x} x2={cursor.x} y1={0} y2={ph} stroke={palette.ink} strokeOpacity={0.45} strokeWidth={0.8} />
                   <line x1={0} x2={pw} y1={cursor.y} y2={cursor.y} stroke={palette.ink} strokeOpacity={0.45} strokeWidth={0.8} />
                 </g>
               )}
-            </g>
             <rect
               ref={overlayRef}
               className="map-overlay"
@@ -253,15 +258,6 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
               onPointerLeave={() => setCursor(null)}
               onClick={(e) => onProbe(toCanonical(pointer(e).x, pointer(e).y))}
             />
-            <rect width={pw} height={ph} fill="none" stroke={palette.ink} strokeOpacity={0.5} pointerEvents="none" />
-            <g ref={xAxisRef} transform={`translate(0,${ph})`} />
-            <g ref={yAxisRef} />
-            <text x={pw / 2} y={ph + 38} textAnchor="middle" fontSize={13} fill={palette.ink}>
-              Polarizability α ({ALPHA_UNIT_LABEL[alphaUnit]})
-            </text>
-            <text transform={`translate(${-54},${ph / 2}) rotate(-90)`} textAnchor="middle" fontSize={13} fill={palette.ink}>
-              Magnetic field B ({FIELD_UNIT_LABEL[fieldUnit]})
-            </text>
           </g>
         </svg>
       )}
