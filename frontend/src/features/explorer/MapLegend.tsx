@@ -77,7 +77,7 @@ export const MapLegend = memo(function MapLegend({ shown, maxCount, energyUnitLa
             </div>
             {counts.map((k) => (
               <div key={k}>
-                <Swatch background={countFill(k, maxCount)} /> {k === maxCount && maxCount > 6 ? `${k} (most)` : `≥ ${k}`}
+                <Swatch background={countFill(k, maxCount)} /> {`≥ ${k}`}{k === maxCount && maxCount > 6 ? ' (most)' : ''}
               </div>
             ))}
           </>

@@ -191,7 +191,7 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
                 <g className="field-bands">
                   {fieldBands.map((b) => (
                     <g key={b.label + b.y}>
-                      <rect x={0} y={b.y} width={pw} height={b.h} fill={palette.fieldBand} fillOpacity={0.14} stroke={palette.fieldBand} strokeOpacity={0.7} strokeDasharray="2 2" />
+                      <rect x={0} y={b.y} width={pw} height={b.h} fill={palette.fieldBand} fillOpacity={0.08} stroke={palette.fieldBand} strokeOpacity={0.8} strokeDasharray="3 2" />
                       <text x={6} y={b.y + 13} fontSize={11} fill="#2c3f99" stroke="#fff" strokeWidth={3} paintOrder="stroke">
                         {b.label}
                       </text>
