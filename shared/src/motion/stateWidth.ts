@@ -3,7 +3,7 @@
  * ion, from the fast table with the recoil correction (allocation-free core).
  */
 import { recoilStretch } from './recoilStretch.js';
-import { TABLE_STATUS, widthTableInto } from './widthTable.js';
+import { tableEnergyRatio, tableLnWidth, tablePBracket } from './widthTable.js';
 
 /** Bits returned by {@link stateWidthInto}. */
 export const WIDTH_FLAG = {
@@ -22,7 +22,7 @@ export const WIDTH_FLAG = {
 /** Shape number used when none can be formed from the neighbours (r_c → 0 asymptote, flagged). */
 export const DEFAULT_SHAPE_NUMBER = 3;
 
-const tableOut = new Float64Array(2);
+const bracket = new Float64Array(5);
 
 /**
  * Γ and the Stark shift of a state of binding ε (hartree) in orbital m with local
@@ -97,29 +97,29 @@ export function stateWidthCore(
     return flags | WIDTH_FLAG.CHANNEL_CLOSED;
   }
   const xi = (eps * sqrtB) / F;
-  const s1 = widthTableInto(m, pp, xi, tableOut);
+  tablePBracket(m, pp, bracket);
+  if (bracket[4]! !== 0) flags |= WIDTH_FLAG.OUTSIDE_TABLE;
+  const e = tableEnergyRatio(bracket, xi);
   let bindingShifted = eps;
-  if (s1 & TABLE_STATUS.DESTROYED) {
-    out[1] = NaN;
-  } else {
-    bindingShifted = -tableOut[1]! * eps;
+  if (e === e) {
+    bindingShifted = -e * eps;
     out[1] = eps - bindingShifted;
+  } else {
+    out[1] = NaN;
   }
-  if (s1 & TABLE_STATUS.OUTSIDE) flags |= WIDTH_FLAG.OUTSIDE_TABLE;
   const a = (bindingShifted - (m + 0.5) * omega) / transverseEnergy;
   if (a >= 1) {
     out[0] = 0;
     out[2] = -Infinity;
     return flags | WIDTH_FLAG.CHANNEL_CLOSED;
   }
-  const s2 = widthTableInto(m, pp, xi * recoilStretch(a), tableOut);
-  if (s2 & TABLE_STATUS.OUTSIDE) flags |= WIDTH_FLAG.OUTSIDE_TABLE;
-  if (s2 & TABLE_STATUS.DESTROYED) {
+  const y = tableLnWidth(bracket, xi * recoilStretch(a));
+  if (y !== y) {
     out[0] = Infinity;
     out[2] = Infinity;
     return flags | WIDTH_FLAG.DESTROYED;
   }
-  out[0] = eps * Math.exp(tableOut[0]!);
-  out[2] = tableOut[0]!;
+  out[0] = eps * Math.exp(y);
+  out[2] = y;
   return flags;
 }

@@ -15,6 +15,7 @@
  * Landau levels of the ion: L. D. Landau and E. M. Lifshitz, QM §112.
  */
 import { stateWidthInto, WIDTH_FLAG } from './stateWidth.js';
+import { WIDTH_TABLE_RANGE } from './widthTable.js';
 
 const w = new Float64Array(3);
 
@@ -30,7 +31,7 @@ function excess(eps: number, m: number, p: number, b: number, mass: number, ePer
  * (Illinois variant) on ln E⊥, bisecting where Γ is 0 or the state destroyed.
  * Returns +Infinity if Γ stays below the target (only possible if the state is
  * never destroyed), and 0 if Γ ≥ target already as E⊥ → 0⁺ (not expected).
- * Relative accuracy of E⊥: 1e-9.
+ * Relative accuracy of E⊥: 1e-8.
  */
 export function criticalTransverseEnergy(
   eps: number,
@@ -51,18 +52,25 @@ export function criticalTransverseEnergy(
   }
   if (fhi < 0) return Infinity;
   const closed = eps - (m + 0.5) * omega;
+  if (closed <= 0) {
+    // no closed channel: as E⊥ → 0 the recoil-stretched ξ saturates at
+    // ξ_sat = ε √(M/(B |ε_eff|)) (a → −∞, 2φ(a)/a → 2E⊥/|ε_eff|); below the table the
+    // state is destroyed at every E⊥ (deeply non-adiabatic)
+    const xiSat = eps * Math.sqrt(ionMass / (fieldAu * Math.max(-closed, 1e-300)));
+    if (xiSat < WIDTH_TABLE_RANGE.xiMin) return 0;
+  }
   let lo = Math.log(closed > 0 ? closed : eps * 1e-6);
   if (lo >= hi) lo = hi - 2;
   let flo = excess(eps, m, p, fieldAu, ionMass, Math.exp(lo), lnT);
-  for (let k = 0; k < 60 && flo >= 0; k++) {
+  for (let k = 0; k < 30 && flo >= 0; k++) {
     hi = lo;
     fhi = flo;
-    lo -= 2;
+    lo -= 4;
     flo = excess(eps, m, p, fieldAu, ionMass, Math.exp(lo), lnT);
   }
   if (flo >= 0) return 0;
   let side = 0;
-  for (let it = 0; it < 100 && hi - lo > 1e-9; it++) {
+  for (let it = 0; it < 100 && hi - lo > 1e-8; it++) {
     let s: number;
     if (Number.isFinite(flo) && Number.isFinite(fhi)) {
       s = (lo * fhi - hi * flo) / (fhi - flo);

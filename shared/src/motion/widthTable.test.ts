@@ -10,7 +10,7 @@ import { GENERATOR_VERSION, TABLE_M, TABLE_P, TABLE_XI } from '../../scripts/wid
 import { traceState } from './exact/traceState.js';
 import { powerLawKappa } from './exact/zeroRangeSolver.js';
 import { WIDTH_TABLE_GENERATOR, WIDTH_TABLE_G, WIDTH_TABLE_M, WIDTH_TABLE_P, WIDTH_TABLE_XI } from './table/widthTableData.js';
-import { TABLE_STATUS, widthTableInto } from './widthTable.js';
+import { TABLE_STATUS, tableEnergyRatio, tableLnWidth, tablePBracket, widthTableInto } from './widthTable.js';
 
 interface HeldOut {
   solverVersion: string;
@@ -117,5 +117,27 @@ describe('table limits and edges', () => {
     expect(widthTableInto(3, 3, 0.99, out) & TABLE_STATUS.DESTROYED).toBeTruthy();
     expect(widthTableInto(3, 3, NaN, out) & TABLE_STATUS.DESTROYED).toBeTruthy();
     expect(widthTableInto(3, 3, 30, out) & TABLE_STATUS.CONTINUED).toBeTruthy();
+  });
+
+  it('the per-cell lookups (tablePBracket + tableLnWidth/tableEnergyRatio) equal widthTableInto (exact identity)', () => {
+    const br = new Float64Array(5);
+    let seed = 99;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    for (let k = 0; k < 2000; k++) {
+      const m = Math.floor(rnd() * 18);
+      const p = 1.5 + 9 * rnd();
+      const xi = 0.5 + 20 * rnd();
+      const s1 = widthTableInto(m, p, xi, out);
+      tablePBracket(m, p, br);
+      const y = tableLnWidth(br, xi);
+      const e = tableEnergyRatio(br, xi);
+      if (s1 & TABLE_STATUS.DESTROYED) {
+        expect(Number.isNaN(y), `m=${m} p=${p} ξ=${xi}`).toBe(true);
+      } else {
+        expect(y, `m=${m} p=${p} ξ=${xi}`).toBe(out[0]);
+        expect(e, `m=${m} p=${p} ξ=${xi}`).toBe(out[1]);
+      }
+      if (xi >= 1) expect(br[4] === 1, `outside m=${m} p=${p}`).toBe((s1 & TABLE_STATUS.OUTSIDE) !== 0);
+    }
   });
 });

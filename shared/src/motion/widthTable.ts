@@ -135,3 +135,78 @@ export function widthTableInto(m: number, p: number, xi: number, out: Float64Arr
     wp * ((1 - wx) * EE[base1 + ix]! + wx * EE[base1 + ix + 1]!);
   return status;
 }
+
+/**
+ * Lower-level lookups for the per-cell loop: the p bracket is resolved once per
+ * state ({@link tablePBracket}), then E_r/ε and ln(Γ/ε) are read separately.
+ * `br` holds [base0, base1, wp, mIndex·P + jp, outside(0/1)].
+ */
+export function tablePBracket(m: number, p: number, br: Float64Array): void {
+  let im = m;
+  let outside = 0;
+  if (im > NM - 1) {
+    im = NM - 1;
+    outside = 1;
+  }
+  let pp = p;
+  if (pp < P_MIN - 1e-9) {
+    pp = P_MIN;
+    outside = 1;
+  } else if (pp > P_MAX + 1e-9) {
+    pp = P_MAX;
+    outside = 1;
+  }
+  let jp = Math.floor((pp - P_MIN) / P_STEP);
+  if (jp > NP - 2) jp = NP - 2;
+  if (jp < 0) jp = 0;
+  br[0] = (im * NP + jp) * NX;
+  br[1] = br[0] + NX;
+  br[2] = (1 / pp - INV_P[jp]!) / (INV_P[jp + 1]! - INV_P[jp]!);
+  br[3] = im * NP + jp;
+  br[4] = outside;
+}
+
+function xiIndex(xi: number): number {
+  let ix = xi <= XI_SPLIT ? Math.floor((xi - XI_MIN) / FINE_STEP) : fineCount - 1 + Math.floor((xi - XI_SPLIT) / COARSE_STEP);
+  if (ix > NX - 2) ix = NX - 2;
+  if (ix < 0) ix = 0;
+  return ix;
+}
+
+/** E_r/ε at ξ for a resolved p bracket; NaN where destroyed. Same values as {@link widthTableInto}. */
+export function tableEnergyRatio(br: Float64Array, xi: number): number {
+  if (!(xi >= XI_MIN)) return NaN;
+  const b0 = br[0]!;
+  const b1 = br[1]!;
+  const wp = br[2]!;
+  if (xi > XI_MAX) {
+    const k = NX - 1;
+    const e1 = (1 - wp) * EE[b0 + k]! + wp * EE[b1 + k]!;
+    const r = XI_MAX / xi;
+    return -1 + (e1 + 1) * r * r;
+  }
+  const ix = xiIndex(xi);
+  const x0 = XI[ix]!;
+  const wx = (xi - x0) / (XI[ix + 1]! - x0);
+  return (1 - wp) * ((1 - wx) * EE[b0 + ix]! + wx * EE[b0 + ix + 1]!) + wp * ((1 - wx) * EE[b1 + ix]! + wx * EE[b1 + ix + 1]!);
+}
+
+/** ln(Γ/ε) at ξ for a resolved p bracket; NaN where destroyed. Same values as {@link widthTableInto}. */
+export function tableLnWidth(br: Float64Array, xi: number): number {
+  if (!(xi >= XI_MIN)) return NaN;
+  const b0 = br[0]!;
+  const b1 = br[1]!;
+  const wp = br[2]!;
+  if (xi > XI_MAX) {
+    const k = NX - 1;
+    const g1 = (1 - wp) * G[b0 + k]! + wp * G[b1 + k]!;
+    const jb = br[3]!;
+    const b = (1 - wp) * BB[jb]! + wp * BB[jb + 1]!;
+    return g1 - xi * xi + b * Math.log(xi / XI_MAX);
+  }
+  const ix = xiIndex(xi);
+  const x0 = XI[ix]!;
+  const wx = (xi - x0) / (XI[ix + 1]! - x0);
+  const g = (1 - wp) * ((1 - wx) * G[b0 + ix]! + wx * G[b0 + ix + 1]!) + wp * ((1 - wx) * G[b1 + ix]! + wx * G[b1 + ix + 1]!);
+  return g - xi * xi;
+}
