@@ -254,7 +254,8 @@ describe('refresh tokens: rotation, reuse detection, expiry, sign-out', () => {
 describe('access tokens', () => {
   let server: TestApp;
   beforeAll(async () => {
-    server = await startTestApp({ auth: { accessTokenTtlSeconds: 1 } as never });
+    // 5 s: long enough for the first call to land inside the lifetime on a loaded machine.
+    server = await startTestApp({ auth: { accessTokenTtlSeconds: 5 } as never });
   });
   afterAll(async () => {
     await server.close();
@@ -282,10 +283,10 @@ describe('access tokens', () => {
     expect((await call(server, 'GET', '/users/me', { token: none })).status).toBe(401);
   });
 
-  it('refuses an expired token with 401 access_token_expired (lifetime shortened to 1 s for this test)', async () => {
+  it('refuses an expired token with 401 access_token_expired (lifetime shortened to 5 s for this test)', async () => {
     const account = await registerAccount(server, 'short');
     expect((await call(server, 'GET', '/users/me', { token: account.token })).status).toBe(200);
-    await new Promise((r) => setTimeout(r, 2100));
+    await new Promise((r) => setTimeout(r, 6100));
     const res = await call(server, 'GET', '/users/me', { token: account.token });
     expect(res.status).toBe(401);
     expect(res.body.code).toBe('access_token_expired');
