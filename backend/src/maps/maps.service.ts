@@ -111,7 +111,8 @@ export class MapsService {
   /** Copies a map (its current content, as version 1) into its own team or another team where the caller edits. */
   async duplicate(mapId: string, caller: AuthUser, dto: DuplicateMapDto): Promise<MapDetail> {
     const { map: source } = await this.mapAccess.load(mapId, caller.id, 'viewer');
-    const target = dto.teamId ? (await this.teamAccess.requireRole(dto.teamId, caller.id, 'editor')).team : (await this.teamAccess.requireRole(source.team.id, caller.id, 'editor')).team;
+    // Editor or owner in the target team (the map's own team by default): 404 outside it, 403 below editor.
+    const target = (await this.teamAccess.requireRole(dto.teamId ?? source.team.id, caller.id, 'editor')).team;
     const author = await this.em.findOneOrFail(User, caller.id);
     const now = this.clock.now();
     const title = dto.title ?? `${source.title} (copy)`.slice(0, MAP_LIMITS.maxTitleLength);
