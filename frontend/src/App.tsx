@@ -12,6 +12,7 @@ import { ResetPasswordPage } from './pages/ResetPasswordPage';
 import { InvitationPage } from './pages/InvitationPage';
 import { TeamPage } from './pages/TeamPage';
 import { ProfilePage } from './pages/ProfilePage';
+import { SpeciesPage } from './pages/SpeciesPage';
 import { MailboxPage } from './pages/MailboxPage';
 import { NotFoundPage } from './pages/NotFoundPage';
 
@@ -35,6 +36,7 @@ export function App() {
             <Route index element={<Navigate to="/maps" replace />} />
             <Route path="maps" element={<MapsPage />} />
             <Route path="maps/:mapId" element={<MapPage />} />
+            <Route path="species" element={<SpeciesPage />} />
             <Route path="team" element={<TeamPage />} />
           </Route>
         </Route>

@@ -4,7 +4,7 @@ import '@fontsource/ibm-plex-sans/600.css';
 import './theme/global.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
-import { BrowserRouter } from 'react-router-dom';
+import { RouterProvider, createBrowserRouter } from 'react-router-dom';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { App as AntdApp, ConfigProvider } from 'antd';
 import { App } from './App';
@@ -15,15 +15,17 @@ const queryClient = new QueryClient({
   defaultOptions: { queries: { staleTime: 15_000, refetchOnWindowFocus: false } },
 });
 
+// A data router (so pages can ask before unsaved changes are lost, see UnsavedChangesGuard); the routes
+// themselves stay declared as <Routes> in App.
+const router = createBrowserRouter([{ path: '*', element: <App /> }]);
+
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
     <ConfigProvider theme={lightTheme}>
       <AntdApp>
         <QueryClientProvider client={queryClient}>
           <CurrentTeamProvider>
-            <BrowserRouter>
-              <App />
-            </BrowserRouter>
+            <RouterProvider router={router} />
           </CurrentTeamProvider>
         </QueryClientProvider>
       </AntdApp>

@@ -104,6 +104,19 @@ export async function apiFetch<T>(path: string, init: ApiInit = {}): Promise<T> 
   return body as T;
 }
 
+/**
+ * A binary answer (thumbnails) as a Blob, with the same token handling as `apiFetch`. `path` is relative to
+ * /api; a path the server gave that already starts with /api is accepted as it is.
+ */
+export async function apiFetchBlob(path: string): Promise<Blob> {
+  const relative = path.startsWith('/api/') ? path.slice(4) : path;
+  if (!session.token) await refreshSession();
+  let response = await send(relative, {}, true);
+  if (response.status === 401 && (await refreshSession())) response = await send(relative, {}, true);
+  if (!response.ok) throw new ApiError(response.status, `Request failed (${response.status})`, null);
+  return response.blob();
+}
+
 async function send(path: string, init: RequestInit, auth: boolean): Promise<Response> {
   const headers = new Headers(init.headers);
   if (init.body && !(init.body instanceof FormData)) headers.set('Content-Type', 'application/json');

@@ -1,9 +1,284 @@
-import { ExplorerPage } from '../features/explorer/ExplorerPage';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { App, Button, Result, Space, Spin, Tooltip, Typography } from 'antd';
+import { ArrowLeftOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { useQueryClient } from '@tanstack/react-query';
+import { canonicalJson, setupFingerprint, type MapDetail, type MapSetup, type SpeciesEntry } from '@fieldbound/shared';
+import { ApiError } from '../api/client';
+import { conflictOf, storeMap, useMap, usePutSummary, usePutThumbnail, useRestoreVersion, useSaveAsCopy, useUpdateMap, type UpdateMapVars } from '../api/maps';
+import { useTeamSpecies } from '../api/species';
+import { useCurrentTeam } from '../state/currentTeam';
+import { ExplorerPage, type ExplorerComputed } from '../features/explorer/ExplorerPage';
+import type { SpeciesMarker } from '../features/explorer/MapView';
+import { ExportMenu } from '../features/export';
+import { ConflictModal } from '../features/maps/ConflictModal';
+import { ShareDialog } from '../features/maps/ShareDialog';
+import { UnsavedChangesGuard } from '../features/maps/UnsavedChangesGuard';
+import { VersionsDrawer } from '../features/maps/VersionsDrawer';
+import { summaryRequest, thumbnailPng } from '../features/maps/resultSummary';
+import { palette } from '../theme/palette';
 
-/**
- * A map: the explorer. Loading and saving the map's setup on the server plug into ExplorerPage's
- * `initialSetup` and `onSaveSetup` (saved maps are a separate feature); until then it opens the default setup.
- */
+/** Height of the map page's own bar under the app's top bar. */
+const BAR_HEIGHT = 44;
+
+/** Species of the catalogue and the team's lists as overlay markers, findable by name and (catalogue) by symbol. */
+export function speciesMarkers(entries: readonly SpeciesEntry[]): SpeciesMarker[] {
+  const out: SpeciesMarker[] = [];
+  for (const s of entries) {
+    const ea = s.electronAffinity;
+    const details = [
+      `${s.name}${s.symbol ? ` (${s.symbol})` : ''}${s.list ? ` · list ${s.list.name}` : ''}`,
+      `α = ${s.polarizability.value} a₀³${s.polarizability.uncertainty !== null ? ` ± ${s.polarizability.uncertainty}` : ''} — ${s.polarizability.source}`,
+      ea.stableAnion && ea.valueEv !== null ? `electron affinity ${ea.valueEv} eV — ${ea.source ?? 'no source given'}` : 'no stable field-free negative ion',
+    ].join('\n');
+    const marker = { name: s.name, alphaAu: s.polarizability.value, alphaUncertaintyAu: s.polarizability.uncertainty ?? 0, hasFieldFreeAnion: ea.stableAnion, details };
+    out.push(marker);
+    if (s.symbol && s.symbol !== s.name) out.push({ ...marker, name: s.symbol });
+  }
+  return out;
+}
+
+/** Two setups are the same saved content when they differ at most in the shown orbital (view state kept in the URL). */
+function sameContent(a: MapSetup, b: MapSetup): boolean {
+  const strip = (s: MapSetup) => canonicalJson({ ...s, display: { ...s.display, shown: null } });
+  return strip(a) === strip(b);
+}
+
+type SaveState = 'saved' | 'unsaved' | 'saving' | 'invalid';
+const SAVE_STATE_TEXT: Record<SaveState, string> = { saved: 'Saved', unsaved: 'Unsaved changes', saving: 'Saving…', invalid: 'Unsaved changes (the setup has errors)' };
+
+/** A saved map: loads it, opens the explorer with its setup, and saves, versions, shares and exports it. */
 export function MapPage() {
-  return <ExplorerPage />;
+  const { mapId } = useParams();
+  const map = useMap(mapId);
+  if (map.isLoading) {
+    return (
+      <div style={{ margin: 'auto', padding: 48 }}>
+        <Spin tip="Opening the map…" size="large">
+          <div style={{ width: 200, height: 80 }} />
+        </Spin>
+      </div>
+    );
+  }
+  if (map.isError || !map.data) {
+    const notFound = map.error instanceof ApiError && (map.error.status === 404 || map.error.status === 403);
+    return (
+      <Result
+        status={notFound ? '404' : 'error'}
+        title={notFound ? 'This map is not available' : 'The map could not be loaded'}
+        subTitle={notFound ? 'It may have been deleted, or it belongs to a team you are not a member of.' : map.error?.message}
+        extra={
+          <Space>
+            {!notFound && <Button onClick={() => map.refetch()}>Try again</Button>}
+            <Link to="/maps">
+              <Button type="primary">Back to the maps</Button>
+            </Link>
+          </Space>
+        }
+      />
+    );
+  }
+  return <MapEditor key={map.data.id} map={map.data} />;
+}
+
+function MapEditor({ map }: { map: MapDetail }) {
+  const { teams } = useCurrentTeam();
+  const role = teams.find((t) => t.id === map.teamId)?.role ?? 'viewer';
+  const canEdit = role === 'editor' || role === 'owner';
+  const { message } = App.useApp();
+  const navigate = useNavigate();
+  const queryClient = useQueryClient();
+
+  const update = useUpdateMap(map.id);
+  const restoreVersion = useRestoreVersion(map.id);
+  const saveAsCopy = useSaveAsCopy();
+  const putSummary = usePutSummary(map.id);
+  const putThumbnail = usePutThumbnail(map.id);
+  const species = useTeamSpecies(map.teamId);
+  const markers = useMemo(() => speciesMarkers(species.data ?? []), [species.data]);
+
+  // The explorer is opened with the saved setup; bumping the key reopens it with the cache's (after reload/restore).
+  const [explorerKey, setExplorerKey] = useState(0);
+  const [openedWith, setOpenedWith] = useState(map.setup);
+  const [current, setCurrent] = useState<MapSetup | null>(map.setup);
+  const [computed, setComputed] = useState<ExplorerComputed | null>(null);
+  const [conflict, setConflict] = useState<{ theirs: MapDetail; mine: { title: string; setup: MapSetup } } | null>(null);
+  const [copyError, setCopyError] = useState<string | null>(null);
+  const [versionsOpen, setVersionsOpen] = useState(false);
+  const [shareOpen, setShareOpen] = useState(false);
+  const explorerBox = useRef<HTMLDivElement>(null);
+
+  const dirty = canEdit && (current === null || !sameContent(current, map.setup));
+  const saveState: SaveState = update.isPending || restoreVersion.isPending ? 'saving' : !dirty ? 'saved' : current === null ? 'invalid' : 'unsaved';
+  const leaving = useRef(false);
+  const shouldWarn = useCallback(() => !leaving.current && dirty, [dirty]);
+
+  const reopen = useCallback((next: MapDetail) => {
+    setOpenedWith(next.setup);
+    setCurrent(next.setup);
+    setComputed(null);
+    setExplorerKey((k) => k + 1);
+  }, []);
+
+  const save = useCallback(
+    (vars: UpdateMapVars) => {
+      const mine = { title: vars.title ?? map.title, setup: vars.setup ?? current ?? map.setup };
+      update.mutate(
+        { expectedVersion: map.version, ...vars },
+        {
+          onSuccess: (saved) => message.success(`Saved as version ${saved.version}.`),
+          onError: (error) => {
+            const theirs = conflictOf(error);
+            if (theirs) setConflict({ theirs, mine });
+            else message.error(`Not saved: ${error.message}`);
+          },
+        },
+      );
+    },
+    [update, map.version, map.title, map.setup, current, message],
+  );
+
+  const onSaveSetup = useCallback((setup: MapSetup) => save({ setup }), [save]);
+
+  // Result summary and thumbnail: once per computed setup that is the saved one (editors only).
+  const sent = useRef(new Set<string>());
+  useEffect(() => {
+    if (!canEdit || !computed || update.isPending) return;
+    const fp = setupFingerprint(computed.setup);
+    if (fp !== setupFingerprint(map.setup) || sent.current.has(fp)) return;
+    const summaryCurrent = map.summary?.setupFingerprint === fp && map.summary.engineVersion === computed.result.engineVersion;
+    if (summaryCurrent && map.thumbnailUrl) return;
+    sent.current.add(fp);
+    putSummary.mutate(summaryRequest(computed.setup, computed.result, computed.fullMs));
+    void thumbnailPng(computed.result).then((png) => png && putThumbnail.mutate(png));
+  }, [canEdit, computed, map.setup, map.summary, map.thumbnailUrl, update.isPending, putSummary, putThumbnail]);
+
+  const onRestoreVersion = (n: number) =>
+    restoreVersion.mutate(
+      { number: n, expectedVersion: map.version },
+      {
+        onSuccess: (restored) => {
+          reopen(restored);
+          message.success(`Version ${n} restored as version ${restored.version}.`);
+        },
+        onError: (error) => {
+          const theirs = conflictOf(error);
+          if (theirs && current) setConflict({ theirs, mine: { title: map.title, setup: current } });
+          else message.error(error.message);
+        },
+      },
+    );
+
+  const reloadTheirs = () => {
+    if (!conflict) return;
+    storeMap(queryClient, conflict.theirs);
+    reopen(conflict.theirs);
+    setConflict(null);
+  };
+  const keepMineAsCopy = () => {
+    if (!conflict) return;
+    setCopyError(null);
+    saveAsCopy.mutate(
+      { mapId: map.id, title: `${conflict.mine.title} (my copy)`.slice(0, 200), setup: conflict.mine.setup },
+      {
+        onSuccess: (copy) => {
+          setConflict(null);
+          leaving.current = true;
+          message.success(`Your setup is saved as “${copy.title}”.`);
+          navigate(`/maps/${copy.id}`);
+        },
+        onError: (error) => setCopyError(error.message),
+      },
+    );
+  };
+
+  return (
+    <div style={{ display: 'flex', flexDirection: 'column' }}>
+      <header
+        aria-label="Map"
+        style={{ height: BAR_HEIGHT, display: 'flex', alignItems: 'center', gap: 12, padding: '0 12px', background: '#fff', borderBottom: `1px solid ${palette.unbound}` }}
+      >
+        <Tooltip title="All maps">
+          <Link to="/maps" aria-label="All maps">
+            <ArrowLeftOutlined />
+          </Link>
+        </Tooltip>
+        <Typography.Title
+          level={5}
+          style={{ margin: 0, minWidth: 0, maxWidth: 480 }}
+          ellipsis={{ tooltip: map.title }}
+          editable={
+            canEdit
+              ? {
+                  triggerType: ['icon', 'text'],
+                  tooltip: 'Rename',
+                  maxLength: 200,
+                  onChange: (title) => {
+                    const t = title.trim();
+                    if (t && t !== map.title) save({ title: t });
+                  },
+                }
+              : false
+          }
+        >
+          {map.title}
+        </Typography.Title>
+        <Typography.Text type="secondary" role="status" aria-live="polite" style={{ fontSize: 12.5, whiteSpace: 'nowrap' }} data-testid="save-state">
+          {canEdit ? SAVE_STATE_TEXT[saveState] : 'Read only: you are a viewer of this team'} · version {map.version}
+        </Typography.Text>
+        <div style={{ flex: 1 }} />
+        <Space size={6}>
+          <Button size="small" icon={<HistoryOutlined />} onClick={() => setVersionsOpen(true)}>
+            Versions
+          </Button>
+          {canEdit && (
+            <Button size="small" icon={<ShareAltOutlined />} onClick={() => setShareOpen(true)}>
+              Share
+            </Button>
+          )}
+          <ExportMenu
+            setup={computed?.setup ?? current ?? map.setup}
+            bindingMap={computed?.result ?? null}
+            title={map.title}
+            getFigureSvg={() => explorerBox.current?.querySelector<SVGSVGElement>('.map-view svg[role="img"]') ?? null}
+          />
+          {canEdit && (
+            <Button size="small" type="primary" icon={<SaveOutlined />} disabled={!dirty || current === null || saveState === 'saving'} loading={saveState === 'saving'} onClick={() => current && save({ setup: current })}>
+              Save
+            </Button>
+          )}
+        </Space>
+      </header>
+      <div ref={explorerBox}>
+        <ExplorerPage
+          key={explorerKey}
+          initialSetup={openedWith}
+          onSaveSetup={canEdit ? onSaveSetup : undefined}
+          saveLabel="Save map"
+          speciesCatalogue={markers}
+          onSetupChange={setCurrent}
+          onComputed={setComputed}
+          style={{ height: `calc(100vh - 48px - ${BAR_HEIGHT}px)` }}
+        />
+      </div>
+      <UnsavedChangesGuard when={shouldWarn} message="This map has unsaved changes. Leave anyway and lose them?" />
+      <ConflictModal
+        theirs={conflict?.theirs ?? null}
+        onReloadTheirs={reloadTheirs}
+        onKeepMineAsCopy={keepMineAsCopy}
+        onClose={() => setConflict(null)}
+        copying={saveAsCopy.isPending}
+        error={copyError}
+      />
+      <VersionsDrawer
+        mapId={map.id}
+        currentVersion={map.version}
+        open={versionsOpen}
+        onClose={() => setVersionsOpen(false)}
+        onRestore={canEdit ? onRestoreVersion : undefined}
+        restoring={restoreVersion.isPending ? (restoreVersion.variables?.number ?? null) : null}
+      />
+      {canEdit && <ShareDialog mapId={map.id} mapTitle={map.title} open={shareOpen} onClose={() => setShareOpen(false)} />}
+    </div>
+  );
 }

@@ -1,9 +1,94 @@
-import { EmptyPage } from '../components/EmptyPage';
+import { Alert, Result, Spin, Typography } from 'antd';
+import { EyeOutlined } from '@ant-design/icons';
+import { useParams } from 'react-router-dom';
+import { ApiError } from '../api/client';
+import { useSharedMap } from '../api/viewingLinks';
+import { ExplorerPage } from '../features/explorer/ExplorerPage';
+import { palette } from '../theme/palette';
 
-export function SharedMapPage() {
+const BAR_HEIGHT = 44;
+
+/** Why a viewing link did not open, in the visitor's terms. */
+function LinkRefused({ error, onRetry }: { error: unknown; onRetry: () => void }) {
+  const status = error instanceof ApiError ? error.status : 0;
+  if (status === 410) {
+    return (
+      <Result
+        status="warning"
+        title="This viewing link has expired"
+        subTitle="The person who shared the map set a date after which the link stops working. Ask them for a new link."
+      />
+    );
+  }
+  if (status === 404 || status === 400) {
+    return (
+      <Result
+        status="404"
+        title="This viewing link does not work"
+        subTitle="It may have been revoked by the person who shared it, or it was copied incompletely. Check the address, or ask them for a new link."
+      />
+    );
+  }
+  if (status === 429) {
+    return <Result status="warning" title="Too many requests" subTitle="This link was opened very often in a short time. Wait a minute and reload the page." />;
+  }
   return (
-    <EmptyPage title="Shared map">
-      A viewing link opens a read-only map here, computed in your browser. No account is needed.
-    </EmptyPage>
+    <Result
+      status="error"
+      title="The map could not be loaded"
+      subTitle={error instanceof Error ? error.message : 'Try again in a moment.'}
+      extra={
+        <a onClick={onRetry} role="button">
+          Try again
+        </a>
+      }
+    />
+  );
+}
+
+/**
+ * A map opened through a viewing link, with no account: the setup comes from the server, the map is computed here in
+ * the visitor's browser, and nothing on the page edits or saves (the server refuses writes through a link anyway).
+ */
+export function SharedMapPage() {
+  const { token } = useParams();
+  const shared = useSharedMap(token);
+
+  if (shared.isLoading) {
+    return (
+      <div style={{ margin: 'auto', padding: 48 }}>
+        <Spin tip="Opening the shared map…" size="large">
+          <div style={{ width: 200, height: 80 }} />
+        </Spin>
+      </div>
+    );
+  }
+  if (shared.isError || !shared.data) return <LinkRefused error={shared.error} onRetry={() => shared.refetch()} />;
+
+  const map = shared.data;
+  return (
+    <div style={{ display: 'flex', flexDirection: 'column' }} data-testid="shared-map">
+      <header style={{ height: BAR_HEIGHT, display: 'flex', alignItems: 'center', gap: 12, padding: '0 12px', background: '#fff', borderBottom: `1px solid ${palette.unbound}` }}>
+        <Typography.Title level={5} style={{ margin: 0, minWidth: 0, maxWidth: 560 }} ellipsis={{ tooltip: map.title }}>
+          {map.title}
+        </Typography.Title>
+        <Typography.Text type="secondary" style={{ fontSize: 12.5, whiteSpace: 'nowrap' }}>
+          <EyeOutlined /> Read-only view
+        </Typography.Text>
+        {map.description && (
+          <Typography.Text type="secondary" style={{ fontSize: 12.5, minWidth: 0 }} ellipsis={{ tooltip: map.description }}>
+            · {map.description}
+          </Typography.Text>
+        )}
+      </header>
+      <Alert
+        banner
+        type="info"
+        showIcon={false}
+        style={{ fontSize: 12.5, padding: '4px 12px' }}
+        message="Computed in your browser from the shared setup. The regions are model estimates (an electron bound to a fixed polarizable atom, one Landau orbital at a time); read the caution under the map before quoting a number."
+      />
+      <ExplorerPage initialSetup={map.setup} readOnly style={{ height: `calc(100vh - 48px - ${BAR_HEIGHT}px - 30px)` }} />
+    </div>
   );
 }
