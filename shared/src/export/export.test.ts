@@ -34,7 +34,7 @@ function fakePhase(b: BindingMapResult, withFractions: boolean): PhaseMapResult 
       if (fractions) fractions.set([0.5, 0.25, 0.25], 3 * s);
     }
   }
-  return { engineVersion: ENGINE_VERSION, stateClass, widthHartree, survivors: new Uint16Array(b.cellCount).fill(1), fractions, elapsedMs: 3 };
+  return { engineVersion: ENGINE_VERSION, stateClass, widthHartree, widthFlags: stateClass.map((c) => (c === 3 ? 8 : 0)), survivors: new Uint16Array(b.cellCount).fill(1), fractions, elapsedMs: 3 };
 }
 
 function sameBits(a: ArrayLike<number>, b: ArrayLike<number>): boolean {
@@ -185,6 +185,7 @@ describe('JSON export and import of a map', () => {
     expect(b.maxRelError).toBe(binding.maxRelError);
     const p = r.value.phase!;
     expect(sameBits(p.widthHartree, phase.widthHartree)).toBe(true);
+    expect(sameBits(p.widthFlags, phase.widthFlags)).toBe(true);
     expect(sameBits(p.stateClass, phase.stateClass)).toBe(true);
     expect(sameBits(p.fractions!, phase.fractions!)).toBe(true);
     expect(sameBits(p.survivors, phase.survivors)).toBe(true);

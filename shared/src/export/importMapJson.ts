@@ -228,9 +228,10 @@ function decodeResults(results: unknown, setup: MapSetup, problems: ImportProble
   if (typeof p.engineVersion !== 'string') problems.push({ path: 'results.phase.engineVersion', message: 'engineVersion must be text' });
   const stateClass = arr('results.phase.stateClass', p.stateClass, 'uint8', states);
   const widthHartree = arr('results.phase.widthHartree', p.widthHartree, 'float64', states);
+  const widthFlags = arr('results.phase.widthFlags', p.widthFlags, 'uint8', states);
   const survivors = arr('results.phase.survivors', p.survivors, 'uint16', cellCount);
   const fractions = p.fractions === undefined || p.fractions === null ? null : arr('results.phase.fractions', p.fractions, 'float32', 3 * states);
-  if (problems.length > 0 || !stateClass || !widthHartree || !survivors) return null;
+  if (problems.length > 0 || !stateClass || !widthHartree || !widthFlags || !survivors) return null;
   for (let k = 0; k < stateClass.length; k++) {
     if (stateClass[k] > 3) {
       problems.push({ path: 'results.phase.stateClass', message: `value ${k} is ${stateClass[k]}; classes are 0 to 3` });
@@ -241,6 +242,7 @@ function decodeResults(results: unknown, setup: MapSetup, problems: ImportProble
     engineVersion: p.engineVersion as string,
     stateClass,
     widthHartree,
+    widthFlags,
     survivors,
     fractions,
     elapsedMs: typeof p.elapsedMs === 'number' ? p.elapsedMs : 0,

@@ -25,7 +25,8 @@ const UNITS = {
   alphas: 'a0^3 (static dipole polarizability, atomic units)',
   fieldsAu: 'atomic units of magnetic field, B0 = hbar/(e a0^2) = 235051.7567581 T (CODATA 2018)',
   bindingHartree: 'hartree; binding energy below the lowest-Landau-level threshold at stateIndex(m, nu, cell) = (m * levelsPerOrbital + nu) * cellCount + cell, cell = row * nAlpha + column; 0 where no state',
-  widthHartree: 'hartree; decay width of the moving ion, same layout',
+  widthHartree: 'hartree; decay width of the moving ion, same layout (0 no decay channel, Infinity destroyed, NaN no state)',
+  widthFlags: 'bits per state: see WIDTH_FLAG (non-adiabatic, outside the width table, channel closed, destroyed, no state)',
   counts: 'bound levels above the floor per orbital and cell, at m * cellCount + cell',
   flags: 'bits per orbital and cell: 1 cutoff-dominated, 2 non-adiabatic, 4 below-floor, 8 direct-solve',
   stateClass: '0 none, 1 bound, 2 resonance, 3 unbound',
@@ -82,6 +83,7 @@ export function* mapJsonChunks(input: MapJsonInput): Generator<string, void, und
   yield `{"engineVersion":${JSON.stringify(phase.engineVersion)},"elapsedMs":${JSON.stringify(phase.elapsedMs)},`;
   yield* arrayField('stateClass', phase.stateClass);
   yield* arrayField('widthHartree', phase.widthHartree);
+  yield* arrayField('widthFlags', phase.widthFlags);
   yield* arrayField('survivors', phase.survivors, phase.fractions === null);
   if (phase.fractions) yield* arrayField('fractions', phase.fractions, true);
   yield '}}}\n';
@@ -100,6 +102,6 @@ export function estimateMapJson(input: MapJsonInput, options: { maxBytes?: numbe
   const b64 = (a: AnyTyped | null | undefined) => (a ? 4 * Math.ceil(a.byteLength / 3) + 60 : 0);
   let bytes = 2000 + 3 * JSON.stringify(input.setup).length;
   if (binding) bytes += 1200 + b64(binding.alphas) + b64(binding.fieldsAu) + b64(binding.bindingHartree) + b64(binding.counts) + b64(binding.flags);
-  if (phase) bytes += 200 + b64(phase.stateClass) + b64(phase.widthHartree) + b64(phase.survivors) + b64(phase.fractions);
+  if (phase) bytes += 200 + b64(phase.stateClass) + b64(phase.widthHartree) + b64(phase.widthFlags) + b64(phase.survivors) + b64(phase.fractions);
   return checkExportSize('json', bytes, 'this map', options.maxBytes);
 }

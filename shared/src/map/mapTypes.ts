@@ -59,8 +59,10 @@ export interface PhaseMapResult {
   engineVersion: string;
   /** STATE_CLASS per state, at `stateIndex(m, ν, cell)`. */
   stateClass: Uint8Array;
-  /** Width Γ in hartree per state (0 when bound with no decay channel, NaN never: destroyed states carry UNBOUND). */
+  /** Width Γ in hartree per state: 0 when bound with no decay channel, +Infinity where destroyed, NaN exactly where stateClass is NONE. */
   widthHartree: Float64Array;
+  /** WIDTH_FLAG bits per state (non-adiabatic, outside the width table, channel closed, destroyed, no state). */
+  widthFlags: Uint8Array;
   /** States that survive the observation time (class BOUND), per cell. */
   survivors: Uint16Array;
   /** With a temperature: fractions bound / resonance / unbound per state, at 3 · stateIndex + k; otherwise null. */

@@ -26,3 +26,4 @@ export {
 export { classifyCells, allocateCellMotionOutput, type CellBindings, type CellMotionOutput } from './classifyCells.js';
 export { ZeroRangeSolver, powerLawKappa, orbitalsNeeded, type ZeroRangeOptions, type ZeroRangeState, type KappaFunction } from './exact/zeroRangeSolver.js';
 export { traceState, type TraceOptions, type TracedState } from './exact/traceState.js';
+export { phaseMap, motionSettingsFromSetup, type PhaseMapOptions } from './phaseMap.js';
