@@ -1,7 +1,10 @@
 /// <reference lib="webworker" />
 // The engine worker: imports only the engine (@fieldbound/shared) and comlink. One instance per pool slot.
 import { expose, transfer } from 'comlink';
-import { bindingMap, levels, type BindingMapResult, type LevelsInput, type MapSetup } from '@fieldbound/shared';
+import {
+  allocateCellMotionOutput, bindingMap, classifyCells, levels, validateMotionSettings,
+  type BindingMapResult, type LevelsInput, type MapSetup, type MotionSettingsInput, type PhaseMapResult,
+} from '@fieldbound/shared';
 import type { EngineWorkerApi } from './engineContract';
 
 /** Progress messages at most every 50 ms: each one is a postMessage to the page. */
@@ -27,6 +30,24 @@ const api: EngineWorkerApi = {
   },
   async levelsAt(input: LevelsInput) {
     return levels(input);
+  },
+  async phaseMap(binding: BindingMapResult, input: MotionSettingsInput) {
+    const t0 = performance.now();
+    const settings = validateMotionSettings(input);
+    const out = allocateCellMotionOutput(binding, settings);
+    classifyCells(binding, settings, out);
+    // (Written as an assertion so it fits the result contract with or without the per-state width flags.)
+    const result = {
+      engineVersion: binding.engineVersion,
+      stateClass: out.stateClass,
+      widthHartree: out.widthHartree,
+      widthFlags: out.flags,
+      survivors: out.survivors,
+      fractions: out.fractions,
+      elapsedMs: performance.now() - t0,
+    } as PhaseMapResult;
+    const buffers = [out.stateClass, out.widthHartree, out.flags, out.survivors, ...(out.fractions ? [out.fractions] : [])].map((a) => a.buffer as ArrayBuffer);
+    return transfer(result, buffers);
   },
 };
 

@@ -1,4 +1,4 @@
-import type { BindingMapResult, LevelsInput, LevelState, MapSetup } from '@fieldbound/shared';
+import type { BindingMapResult, LevelsInput, LevelState, MapSetup, MotionSettingsInput, PhaseMapResult } from '@fieldbound/shared';
 
 /**
  * The typed contract of the engine worker (engine.worker.ts), called through comlink. Errors thrown inside cross
@@ -9,6 +9,8 @@ export interface EngineWorkerApi {
   bindingMap(setup: MapSetup, onProgress: (cellsDone: number) => void): Promise<BindingMapResult>;
   /** Every state at one point (the probe). */
   levelsAt(input: LevelsInput): Promise<LevelState[]>;
+  /** Moving-ion classes, widths and survivors of a binding map (binding energies reused, never recomputed). */
+  phaseMap(binding: BindingMapResult, settings: MotionSettingsInput): Promise<PhaseMapResult>;
 }
 
 /** Why a computation did not finish. */

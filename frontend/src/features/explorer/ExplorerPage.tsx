@@ -16,6 +16,7 @@ import { ProbePanel } from './ProbePanel';
 import { SetupPanel } from './SetupPanel';
 import { ResultCache, useMapComputation } from './hooks/useMapComputation';
 import { useLayerGeometry } from './hooks/useLayerGeometry';
+import { usePhaseMap } from './hooks/usePhaseMap';
 import { readoutAt } from './mapReadout';
 import { checkDraft, type SetupDraft } from './setupDraft';
 import { parseViewParams, sameWindow, setupWindow, windowSetup, writeViewParams, type ProbePoint, type ViewWindow } from './viewState';
@@ -119,8 +120,12 @@ export function ExplorerPage({
 
   const shown = applied.display.shown;
   const levels = applied.contours.levelsKelvin;
-  const baseGeometry = useLayerGeometry(workers?.contours ?? null, base.state.result, null, shown, levels);
-  const windowGeometry = useLayerGeometry(workers?.contours ?? null, zoomed ? windowComp.state.result : null, null, shown, levels);
+  // Ion motion: classes from the engine's motion part, on the binding energies already computed.
+  const basePhase = usePhaseMap(workers?.probe ?? null, base.state.result, applied);
+  const windowPhase = usePhaseMap(workers?.probe ?? null, zoomed ? windowComp.state.result : null, applied);
+  const baseGeometry = useLayerGeometry(workers?.contours ?? null, base.state.result, basePhase.phase, shown, levels);
+  const windowGeometry = useLayerGeometry(workers?.contours ?? null, zoomed ? windowComp.state.result : null, windowPhase.phase, shown, levels);
+  const motionApplied = basePhase.wanted && basePhase.phase !== null;
 
   const layers = useMemo(() => {
     const out: MapLayerInput[] = [];
@@ -227,7 +232,7 @@ export function ExplorerPage({
         </div>
         <div style={{ position: 'relative', flex: 1, minHeight: 0, display: 'flex' }}>
           <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={setProbe} species={species} />
-          <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={false} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} />
+          <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={motionApplied} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} />
           <div style={{ position: 'absolute', top: 12, left: '50%', transform: 'translateX(-50%)', display: 'flex', flexDirection: 'column', gap: 8, alignItems: 'center' }}>
             <ComputeStatus state={activeComp.state} onCancel={activeComp.cancel} onRetry={activeComp.retry} what={activeComp === base ? 'the map' : 'the zoomed window'} />
             {geometryError && <ComputeStatus state={{ ...base.state, status: 'error', error: geometryError }} onCancel={() => {}} onRetry={base.retry} what="the contours" />}
@@ -235,7 +240,8 @@ export function ExplorerPage({
         </div>
         <footer style={{ padding: '4px 12px', fontSize: 11.5, color: '#5b5d70', borderTop: `1px solid ${palette.unbound}`, background: '#fff' }}>
           Model estimate: an electron bound to a fixed polarizable atom in the adiabatic single-orbital approximation (one lowest-Landau-level orbital m at a time). Flags mark where it is doubtful: <b>cutoff-dominated</b> (m = 0 depends on the cutoff radius), <b>non-adiabatic</b> (ε/B &gt; 0.1). Binding weaker than the energy floor counts as unbound.
-          {applied.motion.kind !== 'none' ? ' Ion motion is not applied to this map yet: regions show the fixed atom.' : ''}
+          {motionApplied ? ' Ion motion: a state is bound when its width Γ < ħ/τ (observation time τ), a resonance when Γ < ε, otherwise unbound; radiative decay, collisions and trap fields are not included.' : ''}
+          {basePhase.wanted && !motionApplied ? (basePhase.error ? ` Ion motion could not be applied (${basePhase.error.message}); regions show the fixed atom.` : ' Applying ion motion…') : ''}
         </footer>
       </main>
       <Drawer title="Probe" placement="right" size={420} open={probe !== null} onClose={() => setProbe(null)} mask={false} destroyOnHidden>

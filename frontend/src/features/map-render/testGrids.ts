@@ -43,8 +43,9 @@ export function phaseMapFromTable(rows: string[][]): PhaseMapResult {
     engineVersion: 'test',
     stateClass,
     widthHartree: new Float64Array(flat.length),
+    widthFlags: new Uint8Array(flat.length),
     survivors: Uint16Array.from(flat, (c) => (c === 'B' ? 1 : 0)),
     fractions: null,
     elapsedMs: 0,
-  };
+  } as PhaseMapResult;
 }
