@@ -84,13 +84,16 @@ export function validSetup(rand: Rand): MapSetup {
     const r = range(rand, L.fieldTesla);
     return { label: label(rand), minTesla: r.min, maxTesla: r.max };
   });
+  const alphaRange = range(rand, L.alpha);
+  // The schema bounds the levels per orbital: √α_max / r_c ≤ maxLevelsPerOrbital.
+  const smallestCutoff = Math.sqrt(alphaRange.max) / L.maxLevelsPerOrbital;
   return {
     schemaVersion: SETUP_SCHEMA_VERSION,
-    alphaAxis: { ...range(rand, L.alpha), scale: pick(rand, ['log', 'linear'] as const) },
+    alphaAxis: { ...alphaRange, scale: pick(rand, ['log', 'linear'] as const) },
     fieldAxis: { ...range(rand, L.fieldTesla), scale: pick(rand, ['log', 'linear'] as const) },
     grid: { nAlpha: boundedInt(rand, L.minGridSide, L.maxGridSide), nField: boundedInt(rand, L.minGridSide, L.maxGridSide) },
     orbitals: { mMax },
-    shortRange: { model: 'regularized-polarization', cutoffBohr: boundedPositive(rand, L.cutoffBohr.min, L.cutoffBohr.max) },
+    shortRange: { model: 'regularized-polarization', cutoffBohr: boundedPositive(rand, Math.max(L.cutoffBohr.min, smallestCutoff), L.cutoffBohr.max) },
     energyFloorKelvin: pick(rand, [0, -0, 1e-6, 1e-3, 1, 1e6, 1e300]),
     motion,
     ion: { massNumber: boundedInt(rand, L.massNumber.min, L.massNumber.max) },

@@ -87,6 +87,25 @@ describe('validateSetup', () => {
   });
 });
 
+describe('validateSetup: bounded levels per orbital', () => {
+  it('refuses a cutoff so small that an orbital could hold more than 32 levels (√α_max / r_c), naming the cutoff and the way out', () => {
+    const setup = defaultSetup();
+    setup.alphaAxis.max = 1000;
+    setup.shortRange.cutoffBohr = 1e-3;
+    const issues = issuesOf(setup);
+    expect(issues.map((i) => i.path)).toEqual(['shortRange.cutoffBohr']);
+    expect(issues[0].message).toContain('about 31623 bound levels');
+    expect(issues[0].message).toContain('raise the cutoff to at least 0.988 bohr');
+  });
+
+  it('accepts the edge case √α_max / r_c = 32 exactly', () => {
+    const setup = defaultSetup();
+    setup.alphaAxis.max = 1024;
+    setup.shortRange.cutoffBohr = 1;
+    expect(validateSetup(setup).ok).toBe(true);
+  });
+});
+
 describe('parseSetup', () => {
   it('throws a SetupValidationError that carries every issue', () => {
     const setup = defaultSetup();

@@ -25,7 +25,19 @@ export const SETUP_LIMITS = {
   maxSpecies: 200,
   maxFieldBands: 20,
   maxLabelLength: 80,
+  /**
+   * Most bound levels one orbital may hold anywhere on the map. The count is bounded by the WKB
+   * estimate of the strong-field limit, N ≈ (1/π)∫√(2|V|) dz = √α / r_c for V = −α/(2(z² + r_c²)²)
+   * (atomic units); the transverse average only makes the well shallower. It keeps the cost of a map
+   * bounded (measured: α = 1024 a₀³, r_c = 1 bohr, B = 10¹⁰ T gives exactly 32 levels in 0.3 s).
+   */
+  maxLevelsPerOrbital: 32,
 } as const;
+
+/** Upper estimate of the bound levels one orbital can hold for polarizability α (a₀³) and cutoff r_c (bohr). */
+export function levelsPerOrbitalEstimate(alphaMax: number, cutoffBohr: number): number {
+  return Math.sqrt(alphaMax) / cutoffBohr;
+}
 
 const finitePositive = (what: string) =>
   z
@@ -151,6 +163,15 @@ export const mapSetupSchema = z
   .superRefine((setup, ctx) => {
     if (setup.display.shown.kind === 'orbital' && setup.display.shown.m > setup.orbitals.mMax) {
       ctx.addIssue({ code: 'custom', path: ['display', 'shown', 'm'], message: `shown orbital m = ${setup.display.shown.m} is above the highest orbital computed (${setup.orbitals.mMax})` });
+    }
+    const estimate = levelsPerOrbitalEstimate(setup.alphaAxis.max, setup.shortRange.cutoffBohr);
+    if (estimate > SETUP_LIMITS.maxLevelsPerOrbital) {
+      const needed = Math.sqrt(setup.alphaAxis.max) / SETUP_LIMITS.maxLevelsPerOrbital;
+      ctx.addIssue({
+        code: 'custom',
+        path: ['shortRange', 'cutoffBohr'],
+        message: `with polarizability up to ${setup.alphaAxis.max} a0^3 and a cutoff of ${setup.shortRange.cutoffBohr} bohr an orbital can hold about ${Math.round(estimate)} bound levels (√α/r_c); at most ${SETUP_LIMITS.maxLevelsPerOrbital} are computed: raise the cutoff to at least ${Number(needed.toPrecision(3))} bohr or lower the polarizability maximum`,
+      });
     }
     const levels = setup.contours.levelsKelvin;
     if (new Set(levels).size !== levels.length) {
