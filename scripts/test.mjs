@@ -35,7 +35,8 @@ async function vitestStage(name, workspace, env) {
     name,
     code,
     passed: report?.numPassedTests ?? 0,
-    failed: report?.numFailedTests ?? (code === 0 ? 0 : 1),
+    // A suite that fails outside any test (a file that cannot load) still counts as a failure.
+    failed: Math.max(report?.numFailedTests ?? 0, code === 0 ? 0 : 1),
     skipped: (report?.numPendingTests ?? 0) + (report?.numTodoTests ?? 0),
   };
 }
@@ -50,7 +51,7 @@ async function playwrightStage(env) {
     name: 'end-to-end (Chromium)',
     code,
     passed: (stats?.expected ?? 0) + (stats?.flaky ?? 0),
-    failed: stats?.unexpected ?? (code === 0 ? 0 : 1),
+    failed: Math.max(stats?.unexpected ?? 0, code === 0 ? 0 : 1),
     skipped: stats?.skipped ?? 0,
   };
 }
