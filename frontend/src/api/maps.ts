@@ -88,8 +88,11 @@ export function useMap(mapId: string | undefined) {
     queryFn: () => apiFetch<MapDetail>(`/maps/${mapId}`),
     enabled: !!mapId,
     retry: (count, error) => !(error instanceof ApiError && error.status < 500) && count < 2,
-    // The page holds unsaved edits against this copy: never swap it under the person's feet.
+    // The page holds unsaved edits against this copy: never swap it under the person's feet while it is open
+    // (saves, reloads and restores write it from their answers), but forget it when the page closes, so the next
+    // visit starts from the server's newest version.
     staleTime: Infinity,
+    gcTime: 0,
   });
 }
 
@@ -259,11 +262,23 @@ export function usePutThumbnail(mapId: string) {
   });
 }
 
-/** A thumbnail as an object URL (the image needs the access token, so a plain <img src> cannot load it). */
+function dataUrlOf(blob: Blob): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const reader = new FileReader();
+    reader.onload = () => resolve(String(reader.result));
+    reader.onerror = () => reject(reader.error ?? new Error('The picture could not be read.'));
+    reader.readAsDataURL(blob);
+  });
+}
+
+/**
+ * A thumbnail as a data: URL. The image needs the access token, so a plain <img src> cannot load it, and the page's
+ * Content-Security-Policy allows images from 'self' and data: only (not blob:). Thumbnails are small (≤ 256 KB).
+ */
 export function useThumbnail(url: string | null) {
   const query = useQuery({
     queryKey: mapKeys.thumbnail(url ?? ''),
-    queryFn: async () => URL.createObjectURL(await apiFetchBlob(url!)),
+    queryFn: async () => dataUrlOf(await apiFetchBlob(url!)),
     enabled: !!url,
     staleTime: Infinity, // the URL carries the upload time: a new thumbnail is a new key
     gcTime: 10 * 60_000,

@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { App, Button, Result, Space, Spin, Tooltip, Typography } from 'antd';
-import { ArrowLeftOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
+import { ArrowLeftOutlined, DisconnectOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { canonicalJson, setupFingerprint, type MapDetail, type MapSetup, type SpeciesEntry } from '@fieldbound/shared';
@@ -64,7 +64,8 @@ export function MapPage() {
     const notFound = map.error instanceof ApiError && (map.error.status === 404 || map.error.status === 403);
     return (
       <Result
-        status={notFound ? '404' : 'error'}
+        status={notFound ? undefined : 'error'}
+        icon={notFound ? <DisconnectOutlined style={{ color: palette.ink }} /> : undefined}
         title={notFound ? 'This map is not available' : 'The map could not be loaded'}
         subTitle={notFound ? 'It may have been deleted, or it belongs to a team you are not a member of.' : map.error?.message}
         extra={

@@ -1,5 +1,5 @@
 import { Alert, Result, Spin, Typography } from 'antd';
-import { EyeOutlined } from '@ant-design/icons';
+import { ClockCircleOutlined, DisconnectOutlined, EyeOutlined } from '@ant-design/icons';
 import { useParams } from 'react-router-dom';
 import { ApiError } from '../api/client';
 import { useSharedMap } from '../api/viewingLinks';
@@ -14,7 +14,7 @@ function LinkRefused({ error, onRetry }: { error: unknown; onRetry: () => void }
   if (status === 410) {
     return (
       <Result
-        status="warning"
+        icon={<ClockCircleOutlined style={{ color: palette.ink }} />}
         title="This viewing link has expired"
         subTitle="The person who shared the map set a date after which the link stops working. Ask them for a new link."
       />
@@ -23,7 +23,7 @@ function LinkRefused({ error, onRetry }: { error: unknown; onRetry: () => void }
   if (status === 404 || status === 400) {
     return (
       <Result
-        status="404"
+        icon={<DisconnectOutlined style={{ color: palette.ink }} />}
         title="This viewing link does not work"
         subTitle="It may have been revoked by the person who shared it, or it was copied incompletely. Check the address, or ask them for a new link."
       />

@@ -74,20 +74,22 @@ function SpeciesTable({ items, loading, showList }: { items: SpeciesEntry[]; loa
         {
           title: 'Species',
           key: 'name',
+          width: 200,
           sorter: (a, b) => a.name.localeCompare(b.name),
           render: (_, s) => (
             <span>
               {s.symbol && <b style={{ marginInlineEnd: 6 }}>{s.symbol}</b>}
               {s.name}
-              {s.atomicNumber !== null && <Typography.Text type="secondary"> · Z = {s.atomicNumber}</Typography.Text>}
+              {s.atomicNumber !== null && <Typography.Text type="secondary" style={{ whiteSpace: 'nowrap' }}> · Z = {s.atomicNumber}</Typography.Text>}
             </span>
           ),
         },
         ...(showList ? [{ title: 'List', key: 'list', render: (_: unknown, s: SpeciesEntry) => s.list?.name ?? '' }] : []),
-        { title: 'Polarizability α (a₀³)', key: 'alpha', align: 'right', sorter: (a, b) => a.polarizability.value - b.polarizability.value, render: (_, s) => <Polarizability s={s} /> },
+        { title: 'Polarizability α (a₀³)', key: 'alpha', align: 'right', width: 170, sorter: (a, b) => a.polarizability.value - b.polarizability.value, render: (_, s) => <Polarizability s={s} /> },
         {
           title: 'Field-free anion',
           key: 'ea',
+          width: 210,
           render: (_, s) =>
             s.electronAffinity.stableAnion && s.electronAffinity.valueEv !== null ? (
               <span style={{ fontVariantNumeric: 'tabular-nums' }}>
