@@ -31,6 +31,7 @@ export function CreateMapModal({ teamId, open, onClose, onCreated, importedSetup
   const [importOpen, setImportOpen] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const source = Form.useWatch('source', form) ?? (importedSetup ? 'import' : 'preset');
+  const presetId = Form.useWatch('preset', form) ?? SETUP_PRESETS[0].id;
 
   const submit = async (values: Values) => {
     setError(null);
@@ -87,7 +88,7 @@ export function CreateMapModal({ teamId, open, onClose, onCreated, importedSetup
           </Radio.Group>
         </Form.Item>
         {source === 'preset' ? (
-          <Form.Item name="preset" label="Regime" extra={SETUP_PRESETS.find((p) => p.id === form.getFieldValue('preset'))?.description}>
+          <Form.Item name="preset" label="Regime" extra={SETUP_PRESETS.find((p) => p.id === presetId)?.description}>
             <Select aria-label="Regime" options={SETUP_PRESETS.map((p) => ({ value: p.id, label: p.title }))} />
           </Form.Item>
         ) : (
