@@ -1,3 +1,4 @@
+import type { AuditEventView as SharedAuditEventView } from '@fieldbound/shared';
 import { Injectable } from '@nestjs/common';
 import { EntityManager } from '@mikro-orm/postgresql';
 import { Clock } from '../common/clock';
@@ -13,16 +14,7 @@ export interface AuditEntry {
   ip?: string | null;
 }
 
-export interface AuditEventView {
-  id: string;
-  action: AuditAction;
-  actorId: string | null;
-  actorEmail: string | null;
-  targetUserId: string | null;
-  targetEmail: string | null;
-  details: Record<string, unknown> | null;
-  createdAt: string;
-}
+export type AuditEventView = SharedAuditEventView<AuditAction>;
 
 /**
  * Writes audit events. `record` only persists: the event is flushed together with the change it

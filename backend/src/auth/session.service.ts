@@ -9,7 +9,7 @@ import { ApiError } from '../common/api-error';
 import { newSecretToken, parseSecretToken, secretMatches } from '../common/secret-token';
 import { AuditService } from '../audit/audit.service';
 import { User } from '../users/user.entity';
-import { toUserView, type UserView } from '../users/user.view';
+import { toUserView } from '../users/user.view';
 import { JWT_AUDIENCE, JWT_ISSUER, type AccessTokenClaims } from './jwt.strategy';
 import { RefreshToken } from './refresh-token.entity';
 
@@ -20,12 +20,9 @@ export interface IssuedSession {
   refreshExpiresAt: Date;
 }
 
-export interface SessionView {
-  accessToken: string;
-  /** ISO time after which the access token is refused; refresh a little before it. */
-  accessTokenExpiresAt: string;
-  user: UserView;
-}
+import type { SessionView } from '@fieldbound/shared';
+
+export type { SessionView };
 
 export interface ClientMeta {
   ip?: string | null;

@@ -1,3 +1,4 @@
+import type { SentInvitation } from '@fieldbound/shared';
 import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { EntityManager } from '@mikro-orm/postgresql';
@@ -18,11 +19,8 @@ import { User } from '../users/user.entity';
 import { Invitation } from './invitation.entity';
 import type { InvitationPreview, InvitationView } from './invitation.view';
 
-export interface SentInvitation {
-  invitation: InvitationView;
-  /** False when the SMTP server refused or could not be reached; the invitation exists and can be re-sent. */
-  emailSent: boolean;
-}
+// emailSent is false when the SMTP server refused or could not be reached; the invitation exists and can be re-sent.
+export type { SentInvitation };
 
 /**
  * Invitations: owners invite an address with a role; the e-mailed one-time link lets its holder join,

@@ -2,17 +2,9 @@ import crypto from 'node:crypto';
 import { SMTPServer } from 'smtp-server';
 import { extractLinks, parseMessage } from './mime';
 
-/** A message as the local mail fake received it over SMTP. */
-export interface CapturedMessage {
-  id: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-  html: string | null;
-  links: string[];
-  receivedAt: string;
-}
+import type { CapturedMessage } from '@fieldbound/shared';
+
+export type { CapturedMessage };
 
 /**
  * A real SMTP server on 127.0.0.1, started in-process when no FIELDBOUND_SMTP_URL is set, that keeps

@@ -1,19 +1,2 @@
-import type { TeamRole } from './team-role';
-
-export interface TeamView {
-  id: string;
-  name: string;
-  /** The caller's own role in this team. */
-  role: TeamRole;
-  memberCount: number;
-  createdAt: string;
-}
-
-export interface MemberView {
-  userId: string;
-  email: string;
-  displayName: string;
-  role: TeamRole;
-  joinedAt: string;
-  lastSignInAt: string | null;
-}
+// The answer shapes live in the shared package, so the client reads exactly what the server sends.
+export type { TeamView, MemberView } from '@fieldbound/shared';

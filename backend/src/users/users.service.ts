@@ -2,14 +2,12 @@ import { Injectable } from '@nestjs/common';
 import { EntityManager } from '@mikro-orm/postgresql';
 import { AuditService, type AuditEventView } from '../audit/audit.service';
 import { Membership } from '../teams/membership.entity';
-import type { TeamRole } from '../teams/team-role';
 import { User } from './user.entity';
 import { toUserView, type UserView } from './user.view';
 
-export interface MeView {
-  user: UserView;
-  teams: { id: string; name: string; role: TeamRole }[];
-}
+import type { MeView } from '@fieldbound/shared';
+
+export type { MeView };
 
 @Injectable()
 export class UsersService {

@@ -4,3 +4,4 @@ export * from './maps.js';
 export * from './pins.js';
 export * from './links.js';
 export * from './species.js';
+export * from './accounts.js';
