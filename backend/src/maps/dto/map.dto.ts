@@ -1,4 +1,4 @@
-import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
 import { Transform, Type } from 'class-transformer';
 import { ArrayMaxSize, ArrayUnique, IsArray, IsIn, IsInt, IsNotEmpty, IsObject, IsOptional, IsString, IsUUID, Matches, Max, MaxLength, Min, ValidateNested, IsNumber } from 'class-validator';
 import { MAP_LIMITS, MAP_SORT_KEYS, type MapSetup, type MapSortKey } from '@fieldbound/shared';
@@ -38,41 +38,12 @@ export class CreateMapDto {
   setup: MapSetup;
 }
 
-export class UpdateMapDto {
+/** Every field of a new map, each optional, plus the version the edit is based on. */
+export class UpdateMapDto extends PartialType(CreateMapDto) {
   @ApiProperty({ description: 'The version this edit is based on; a stale one gets 409 with the current map.' })
   @IsInt({ message: 'expectedVersion must be the whole version number you last read.' })
   @Min(1)
   expectedVersion: number;
-
-  @ApiPropertyOptional({ maxLength: MAP_LIMITS.maxTitleLength })
-  @IsOptional()
-  @Transform(trim)
-  @IsString({ message: 'Give the map a title.' })
-  @IsNotEmpty({ message: 'Give the map a title.' })
-  @MaxLength(MAP_LIMITS.maxTitleLength, { message: `A title has at most ${MAP_LIMITS.maxTitleLength} characters.` })
-  title?: string;
-
-  @ApiPropertyOptional({ maxLength: MAP_LIMITS.maxDescriptionLength })
-  @IsOptional()
-  @IsString({ message: 'The description must be text.' })
-  @MaxLength(MAP_LIMITS.maxDescriptionLength, { message: `A description has at most ${MAP_LIMITS.maxDescriptionLength} characters.` })
-  description?: string;
-
-  @ApiPropertyOptional({ type: [String], maxItems: MAP_LIMITS.maxTags })
-  @IsOptional()
-  @Transform(trimAll)
-  @IsArray({ message: 'Tags must be a list of words.' })
-  @ArrayMaxSize(MAP_LIMITS.maxTags, { message: `At most ${MAP_LIMITS.maxTags} tags.` })
-  @ArrayUnique({ message: 'A tag is listed twice.' })
-  @IsString({ each: true, message: 'Each tag must be text.' })
-  @IsNotEmpty({ each: true, message: 'A tag must not be empty.' })
-  @MaxLength(MAP_LIMITS.maxTagLength, { each: true, message: `A tag has at most ${MAP_LIMITS.maxTagLength} characters.` })
-  tags?: string[];
-
-  @ApiPropertyOptional({ type: 'object', additionalProperties: true, description: SETUP_DOC })
-  @IsOptional()
-  @IsObject({ message: 'The setup must be an object.' })
-  setup?: MapSetup;
 }
 
 export class ListMapsQueryDto {
