@@ -70,7 +70,6 @@ describe('phaseMap', () => {
   it('finds all three classes somewhere on this map at 4 K (the motion matters in this regime)', () => {
     const phase = phaseMap(smallSetup({ kind: 'temperature', kelvin: 4 }), binding);
     const seen = new Set(phase.stateClass);
-    expect([...seen].sort()).toEqual([STATE_CLASS.NONE, STATE_CLASS.BOUND, STATE_CLASS.RESONANCE, STATE_CLASS.UNBOUND].filter((c) => seen.has(c)).sort());
     expect(seen.has(STATE_CLASS.BOUND)).toBe(true);
     expect(seen.has(STATE_CLASS.RESONANCE) || seen.has(STATE_CLASS.UNBOUND)).toBe(true);
   });
