@@ -32,5 +32,5 @@ export function toPinDetail(pin: Pin, replies: PinReply[]): PinDetail {
 
 /** What a viewing-link holder sees of a pin: no people, no thread. */
 export function toSharedPin(pin: Pin): SharedPin {
-  return { geometry: pin.geometry, title: pin.title, body: pin.body, status: pin.status, category: pin.category };
+  return { id: pin.id, geometry: pin.geometry, title: pin.title, body: pin.body, status: pin.status, category: pin.category };
 }

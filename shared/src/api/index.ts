@@ -5,3 +5,4 @@ export * from './pins.js';
 export * from './links.js';
 export * from './species.js';
 export * from './accounts.js';
+export * from './live.js';

@@ -32,6 +32,8 @@ export interface CreatedViewingLink {
 
 /** A pin as a link holder sees it: no authors, no thread. */
 export interface SharedPin {
+  /** Stable id, so live events can move or remove the pin in a shared view. */
+  id: string;
   geometry: PinGeometry;
   title: string;
   body: string;
