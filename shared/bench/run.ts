@@ -21,7 +21,8 @@ import { parseArgs } from 'node:util';
 import { levels } from '../src/levels/levels.js';
 import { bindingMap } from '../src/map/bindingMap.js';
 import { compareWithDirect } from '../src/map/compareWithDirect.js';
-import { benchSetup, seededRandom } from '../src/map/testSetups.js';
+import { benchSetup } from '../src/map/testSetups.js';
+import { mulberry32 } from '../test/seededRandom.js';
 import { ENGINE_VERSION } from '../src/version.js';
 import { naiveLevels } from './naiveFiniteDifference.js';
 
@@ -63,7 +64,7 @@ const statesStored = map.counts.reduce((a, b) => a + b, 0);
 log(`map ${map.nAlpha}×${map.nField}, m = 0…${map.mMax}, ${map.levelsPerOrbital} levels per orbital stored, ${statesStored} states, ${map.directSolves ?? 0} (orbital, cell) pairs solved directly, estimated max rel. error ${fmt(map.maxRelError)}`);
 
 // ---------------------------------------------------------------- 2. accuracy
-const rnd = seededRandom(20261202);
+const rnd = mulberry32(20261202);
 const cells: number[] = [];
 for (let k = 0; k < SAMPLES; k++) cells.push(Math.floor(rnd() * map.cellCount));
 const tA = performance.now();
@@ -85,7 +86,7 @@ interface NaiveSample {
 }
 const naiveSamples: NaiveSample[] = [];
 if (NAIVE > 0) {
-  const r2 = seededRandom(424242);
+  const r2 = mulberry32(424242);
   const NMAX = 1 << 20;
   for (let k = 0; k < NAIVE; k++) {
     const cell = Math.floor(r2() * map.cellCount);

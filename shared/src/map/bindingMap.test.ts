@@ -12,7 +12,8 @@ import { bindingMap, bindingMapWindow } from './bindingMap.js';
 import { bindingMapDirect } from './bindingMapDirect.js';
 import { compareWithDirect } from './compareWithDirect.js';
 import { MAP_FLAG, type MapProgress } from './mapTypes.js';
-import { auToTesla, mapTestSetup, seededRandom } from './testSetups.js';
+import { mulberry32 } from '../../test/seededRandom.js';
+import { auToTesla, mapTestSetup } from './testSetups.js';
 
 const TOL = 1e-6;
 const N = Number(process.env.FIELDBOUND_MAP_TEST_N ?? 48);
@@ -29,7 +30,7 @@ const SETUPS = {
 };
 
 function randomCells(cellCount: number, n: number, seed: number): number[] {
-  const rnd = seededRandom(seed);
+  const rnd = mulberry32(seed);
   const out: number[] = [];
   for (let k = 0; k < n; k++) out.push(Math.floor(rnd() * cellCount));
   // plus the four corners

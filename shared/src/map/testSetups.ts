@@ -38,15 +38,3 @@ export function benchSetup(n = 512): MapSetup {
     floorKelvin: 0,
   });
 }
-
-/** Deterministic pseudo-random numbers in [0, 1) (mulberry32), for seeded test and benchmark samples. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
