@@ -1,8 +1,9 @@
-import { useCallback, useEffect, useMemo, useRef, useState, type CSSProperties } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type CSSProperties, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { Button, Drawer, Select, Space, Tooltip, Typography } from 'antd';
 import { CompressOutlined, MenuFoldOutlined, MenuUnfoldOutlined } from '@ant-design/icons';
-import { defaultSetup, teslaToAtomic, validateSetup, type BindingMapResult, type MapSetup, type Tesla } from '@fieldbound/shared';
+import { defaultSetup, teslaToAtomic, validateSetup, type BindingMapResult, type MapSetup, type PhaseMapResult, type Tesla } from '@fieldbound/shared';
+import type { MapOverlayContext } from '../map-render/mapOverlay';
 import { palette } from '../../theme/palette';
 import { ENERGY_UNIT_LABEL } from '../map-render/displayUnits';
 import type { ShownQuantity } from '../map-render/regionField';
@@ -43,7 +44,18 @@ export interface ExplorerPageProps {
   onSetupChange?: (setup: MapSetup | null) => void;
   /** Saved-maps seam: a full-grid computation finished (for the result summary, thumbnail and export). */
   onComputed?: (computed: ExplorerComputed) => void;
+  /** Pins seam: drawn over the map in data coordinates, with the finished full-grid classes to read regions from. */
+  overlay?: (ctx: ExplorerOverlayContext) => ReactNode;
 }
+
+/** The finished full-grid computation the regions are read from (null while computing or applying ion motion). */
+export interface ExplorerRegions {
+  binding: BindingMapResult;
+  phase: PhaseMapResult | null;
+  setup: MapSetup;
+  shown: ShownQuantity;
+}
+export type ExplorerOverlayContext = MapOverlayContext & { regions: ExplorerRegions | null };
 
 /** What `onComputed` reports: the full-grid result, the setup it belongs to and its wall time. */
 export interface ExplorerComputed {
@@ -78,6 +90,7 @@ export function ExplorerPage({
   readOnly = false,
   onSetupChange,
   onComputed,
+  overlay,
 }: ExplorerPageProps) {
   const [params, setParams] = useSearchParams();
   const fromUrl = useMemo(() => parseViewParams(params), []); // read once, when the page opens
@@ -126,6 +139,11 @@ export function ExplorerPage({
   const baseGeometry = useLayerGeometry(workers?.contours ?? null, base.state.result, basePhase.phase, shown, levels);
   const windowGeometry = useLayerGeometry(workers?.contours ?? null, zoomed ? windowComp.state.result : null, windowPhase.phase, shown, levels);
   const motionApplied = basePhase.wanted && basePhase.phase !== null;
+  const regions = useMemo<ExplorerRegions | null>(
+    () => (baseStatus === 'done' && basePass === 'full' && baseResult && baseResultSetup && (!basePhase.wanted || basePhase.phase) ? { binding: baseResult, phase: basePhase.phase, setup: baseResultSetup, shown } : null),
+    [baseStatus, basePass, baseResult, baseResultSetup, basePhase.wanted, basePhase.phase, shown],
+  );
+  const mapOverlay = useMemo(() => (overlay ? (ctx: MapOverlayContext) => overlay({ ...ctx, regions }) : undefined), [overlay, regions]);
 
   const layers = useMemo(() => {
     const out: MapLayerInput[] = [];
@@ -231,7 +249,7 @@ export function ExplorerPage({
           </Typography.Text>
         </div>
         <div style={{ position: 'relative', flex: 1, minHeight: 0, display: 'flex' }}>
-          <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={setProbe} species={species} />
+          <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={setProbe} species={species} overlay={mapOverlay} />
           <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={motionApplied} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} />
           <div style={{ position: 'absolute', top: 12, left: '50%', transform: 'translateX(-50%)', display: 'flex', flexDirection: 'column', gap: 8, alignItems: 'center' }}>
             <ComputeStatus state={activeComp.state} onCancel={activeComp.cancel} onRetry={activeComp.retry} what={activeComp === base ? 'the map' : 'the zoomed window'} />

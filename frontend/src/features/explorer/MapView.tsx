@@ -1,4 +1,4 @@
-import { memo, useCallback, useEffect, useId, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { select, zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3';
 import type { BindingMapResult, MapSetup } from '@fieldbound/shared';
 import { palette } from '../../theme/palette';
@@ -13,6 +13,7 @@ import { formatScientific } from '../map-render/formatNumber';
 import type { GridAxis } from '../map-render/gridGeometry';
 import type { MapGeometry } from '../map-render/mapGeometry';
 import { projectGeometry, type ToScreen } from '../map-render/projectGeometry';
+import type { MapOverlayContext } from '../map-render/mapOverlay';
 import { SETUP_LIMITS, teslaToAtomic, type Tesla } from '@fieldbound/shared';
 import { useElementSize } from './useElementSize';
 import type { ProbePoint, ViewWindow } from './viewState';
@@ -45,6 +46,8 @@ export interface MapViewProps {
   probe: ProbePoint | null;
   onProbe: (point: ProbePoint) => void;
   species: readonly SpeciesMarker[];
+  /** Drawn over the plot area in data coordinates (pins); pointer events pass through to the map where it draws nothing. */
+  overlay?: (ctx: MapOverlayContext) => ReactNode;
 }
 
 const MARGIN = { top: 14, right: 18, bottom: 46, left: 70 };
@@ -65,7 +68,7 @@ const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v
  * species and the probe; d3-zoom pans and zooms (the picture follows at once, the new window is reported after
  * the gesture settles); a crosshair reads α, B and the quantity under the cursor; a click probes a point.
  */
-export const MapView = memo(function MapView({ setup, view, onViewChange, layers, readout, probe, onProbe, species }: MapViewProps) {
+export const MapView = memo(function MapView({ setup, view, onViewChange, layers, readout, probe, onProbe, species, overlay }: MapViewProps) {
   const containerRef = useRef<HTMLDivElement>(null);
   const { width, height } = useElementSize(containerRef);
   const svgRef = useRef<SVGSVGElement>(null);
@@ -77,6 +80,7 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
   const zoomRef = useRef<ZoomBehavior<SVGRectElement, unknown> | null>(null);
   const uid = useId().replace(/[^a-zA-Z0-9]/g, '');
   const [cursor, setCursor] = useState<{ x: number; y: number } | null>(null);
+  const [gesture, setGesture] = useState<ZoomTransform>(zoomIdentity);
 
   const pw = Math.max(10, width - MARGIN.left - MARGIN.right);
   const ph = Math.max(10, height - MARGIN.top - MARGIN.bottom);
@@ -106,6 +110,7 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
     drawMapLayers(layersRef.current, projected, { prefix: `m${uid}` });
     contentRef.current?.removeAttribute('transform');
     if (overlayRef.current) select(overlayRef.current).property('__zoom', zoomIdentity);
+    setGesture(zoomIdentity);
     const ms = performance.now() - t0;
     if (import.meta.env.DEV && ms > 50) console.warn(`map drawing took ${ms.toFixed(0)} ms`);
   }, [projected, uid]);
@@ -120,8 +125,8 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
   useLayoutEffect(() => drawAxes(zoomIdentity), [drawAxes]);
 
   // Zoom and pan: transform the drawn content at once, report the new window once the gesture settles.
-  const viewRef = useRef({ xScale, yScale, onViewChange, alphaUnit, fieldUnit });
-  viewRef.current = { xScale, yScale, onViewChange, alphaUnit, fieldUnit };
+  const viewRef = useRef({ xScale, yScale, onViewChange, alphaUnit, fieldUnit, hasOverlay: !!overlay });
+  viewRef.current = { xScale, yScale, onViewChange, alphaUnit, fieldUnit, hasOverlay: !!overlay };
   useEffect(() => {
     const overlay = overlayRef.current;
     if (!overlay) return;
@@ -133,6 +138,7 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
         const t = event.transform;
         contentRef.current?.setAttribute('transform', t.toString());
         drawAxes(t);
+        if (viewRef.current.hasOverlay) setGesture(t);
         clearTimeout(timer);
         timer = setTimeout(() => {
           const { xScale: xs, yScale: ys, onViewChange: report, alphaUnit: au, fieldUnit: fu } = viewRef.current;
@@ -168,6 +174,13 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
       const y1 = yScale(fieldTeslaToDisplay(Math.min(b.maxTesla, view.field[1]), fieldUnit));
       return { label: b.label, y: Math.min(y0, y1), h: Math.abs(y0 - y1) };
     });
+
+  const overlayNode = useMemo(() => {
+    if (!overlay) return null;
+    const toData = (x: number, y: number) => toCanonical(gesture.invertX(x), gesture.invertY(y));
+    const toScreenT = (a: number, b: number): [number, number] => [gesture.applyX(xScale(alphaToDisplay(a, alphaUnit))), gesture.applyY(yScale(fieldTeslaToDisplay(b, fieldUnit)))];
+    return overlay({ width: pw, height: ph, offset: { left: MARGIN.left, top: MARGIN.top }, transform: gesture, toScreen: toScreenT, toData, view, setView: onViewChange, scales: { alpha: xKind, field: yKind } });
+  }, [overlay, gesture, toCanonical, xScale, yScale, alphaUnit, fieldUnit, pw, ph, view, onViewChange, xKind, yKind]);
 
   const probeXY = probe ? [xScale(alphaToDisplay(probe.alpha, alphaUnit)), yScale(fieldTeslaToDisplay(probe.tesla, fieldUnit))] : null;
   const cursorPoint = cursor ? toCanonical(cursor.x, cursor.y) : null;
@@ -260,6 +273,11 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
             />
           </g>
         </svg>
+      )}
+      {width > 0 && overlayNode && (
+        <div className="map-overlay-slot" style={{ position: 'absolute', left: MARGIN.left, top: MARGIN.top, width: pw, height: ph, pointerEvents: 'none' }}>
+          {overlayNode}
+        </div>
       )}
       {cursor && cursorPoint && (
         <div
