@@ -29,9 +29,11 @@ export interface BuildSettings {
   degMax: number;
   degThresholdMax: number;
   degThreshold0: number;
-  /** Excited nodes with λ − λ_c ≥ farFromThreshold·λ_c are solved on a mesh of accuracy meshTolFar. */
-  farFromThreshold: number;
-  meshTolFar: number;
+  /**
+   * Excited levels: the nodes are solved on a mesh of accuracy meshTolNode (coarser than the
+   * threshold mesh, meshTolExcited), relative to that mesh's own threshold.
+   */
+  meshTolNode: number;
   /** Lower end of the excited u-range: λ − λ_c ≥ nearThreshold·λ_c. */
   nearThreshold: number;
 }
@@ -47,8 +49,7 @@ export const DEFAULT_BUILD: BuildSettings = {
   degThresholdMax: 96,
   degThreshold0: 12,
   nearThreshold: 1e-4,
-  farFromThreshold: 0.05,
-  meshTolFar: 1e-8,
+  meshTolNode: 1e-8,
 };
 
 interface Spec {
@@ -67,11 +68,15 @@ interface Row {
   /** λ_c,ν at this row for ν = 0…(index), NaN where not computed. */
   thr: number[];
   /**
-   * Excited rows: a cheaper mesh (meshTolFar) for nodes far above the threshold, made on first use.
-   * There the threshold's discretisation offset δ only enters as 2δ/(λ − λ_c) ≤ 2δ/(farFromThreshold·λ_c).
+   * Excited rows: the mesh the nodes are solved on (accuracy meshTolNode, made on first use) and
+   * level ν's threshold on that mesh (thrNode[ν]). A node at λ = λ_c,node + e^u then refers to one
+   * discretised potential throughout — its value G = ln ε̃ − 2u is the mesh's approximation of a
+   * smooth function of the distance to the threshold, accurate to about the mesh's own tolerance
+   * however close to the threshold — while the threshold curve (thr, the finer mesh of `solver`)
+   * places the cells.
    */
-  far?: OrbitalRowSolver;
-  lambdaRef?: number;
+  node?: OrbitalRowSolver;
+  thrNode?: number[];
 }
 
 const LN_TINY = -1400; // far below any resolvable ln ε̃ (solver epsMin is ≥ 1e-26·depth)
@@ -124,11 +129,19 @@ export function buildOrbitalModel(
     return r;
   };
 
-  /** The mesh a node is solved on: the row's own, or its cheaper far mesh well above a threshold. */
-  const solverFor = (row: Row, nu: number, u: number): OrbitalRowSolver => {
-    if (nu === 0 || !(Math.exp(u) >= settings.farFromThreshold * row.thr[nu])) return row.solver;
-    row.far ??= newSolver(row.s, row.solver.lambdaRef, settings.meshTolFar);
-    return row.far;
+  /** The mesh a node of level ν is solved on: the row's own (ground state) or its node mesh (excited). */
+  const solverFor = (row: Row, nu: number): OrbitalRowSolver => {
+    if (nu === 0) return row.solver;
+    row.node ??= newSolver(row.s, row.solver.lambdaRef, settings.meshTolNode);
+    return row.node;
+  };
+  /** λ_c,ν on the mesh the level's nodes are solved on (0 for the ground state). */
+  const nodeThreshold = (row: Row, nu: number): number => {
+    if (nu === 0) return 0;
+    const sol = solverFor(row, nu);
+    row.thrNode ??= [];
+    row.thrNode[nu] ??= sol.threshold(nu, Math.log(row.thr[nu]), 1e-9);
+    return row.thrNode[nu];
   };
 
   // ---------- ground state ----------
@@ -318,9 +331,9 @@ export function buildOrbitalModel(
     const solveNode = (q: number, row: Row, xi: number, guessG: number, spread: number): number => {
       const nu = specs[q].nu;
       const u = uOf(q, xi, row);
-      const lambda = (nu === 0 ? 0 : row.thr[nu]) + Math.exp(u);
+      const lambda = nodeThreshold(row, nu) + Math.exp(u);
       nodeSolves++;
-      const solver = solverFor(row, nu, u);
+      const solver = solverFor(row, nu);
       // the slope of the matching function at this row's previous root is a good Newton hint
       const lnEps = solver.lnLevel(lambda, nu, guessG + 2 * u, spread, LN_TINY, spread <= 0.5 ? solver.lastSlope : NaN);
       return lnEps - 2 * u;
@@ -461,19 +474,18 @@ export function buildOrbitalModel(
       const W = S + 1;
       for (const k of [0, S >> 1, S]) {
         const r = rows[k];
-        const fine = newSolver(r.s, r.solver.lambdaRef, thrRows !== null ? settings.meshTolExcited : settings.meshTolGround, 2);
-        // excited levels near the threshold: relative to the refined mesh's own threshold (the
-        // threshold's own discretisation error is accounted for per cell); far from it, the far mesh
-        // against its refined version at the same λ
         const nu = sp.nu;
-        const thrFine = nu === 0 ? 0 : fine.threshold(nu, Math.log(r.thr[nu]), 1e-9);
+        // the node's mesh refined (every step halved); excited levels relative to the refined mesh's
+        // own threshold, as the nodes are to theirs (the threshold curve's own discretisation error
+        // is accounted for per cell)
+        const sol = solverFor(r, nu);
+        const fine = newSolver(r.s, sol.lambdaRef, nu === 0 ? settings.meshTolGround : settings.meshTolNode, 2);
+        const thrFine = nu === 0 ? 0 : fine.threshold(nu, Math.log(nodeThreshold(r, nu)), 1e-9);
         for (const i of [0, U >> 1, U]) {
           const u = uOf(q, xs[i], r);
-          const sol = solverFor(r, nu, u);
-          const check = sol === r.solver ? fine : newSolver(r.s, sol.lambdaRef, settings.meshTolFar, 2);
-          const lambda = (sol === r.solver ? thrFine : nu === 0 ? 0 : r.thr[nu]) + Math.exp(u);
+          const lambda = thrFine + Math.exp(u);
           const g = values[q][i * W + k];
-          const lnEps = check.lnLevel(lambda, nu, g + 2 * u, 1e-8, LN_TINY);
+          const lnEps = fine.lnLevel(lambda, nu, g + 2 * u, 1e-8, LN_TINY);
           disc = Math.max(disc, Math.abs(lnEps - 2 * u - g));
         }
       }

@@ -54,6 +54,44 @@ function chebyshevPiece(f: (t: number) => number, t0: number, dt: number, out: F
   }
 }
 
+/** Origin of the shared piece grid in t = ln b: piece k covers [T_ORIGIN + k·TABLE_DT, T_ORIGIN + (k+1)·TABLE_DT]. */
+const T_ORIGIN = Math.log(TABLE_B_MIN);
+
+/**
+ * Chebyshev pieces of U(2, 2−m, e^t) on the fixed grid of t from T_ORIGIN, shared by every ρ_c of one m
+ * (U does not depend on ρ_c: only the range of b = (ζ² + ρ_c²)/2 a fast evaluator needs does). Pieces
+ * are computed once, when an evaluator first needs them; `built[k]` marks piece k as filled.
+ */
+interface PieceTable {
+  table: Float64Array;
+  built: Uint8Array;
+}
+const PIECE_TABLES = new Map<number, PieceTable>();
+
+/** The pieces k = first…last of orbital m, computed where not yet built (module-level cache). */
+function pieceTable(m: number, first: number, last: number): Float64Array {
+  let pt = PIECE_TABLES.get(m);
+  if (pt === undefined || pt.built.length <= last) {
+    const n = Math.max(last + 1, 2 * (pt?.built.length ?? 0));
+    const table = new Float64Array(n * TABLE_N);
+    const built = new Uint8Array(n);
+    if (pt !== undefined) {
+      table.set(pt.table);
+      built.set(pt.built);
+    }
+    pt = { table, built };
+    PIECE_TABLES.set(m, pt);
+  }
+  const u = (t: number): number => tricomiU2Unchecked(m, Math.exp(t));
+  for (let k = first; k <= last; k++) {
+    if (pt.built[k] === 0) {
+      chebyshevPiece(u, T_ORIGIN + k * TABLE_DT, TABLE_DT, pt.table, k * TABLE_N);
+      pt.built[k] = 1;
+    }
+  }
+  return pt.table;
+}
+
 /**
  * Fast evaluator of w_m(ζ; ρ_c) for fixed (m, ρ_c): the hot path of the bound-state solver.
  *
@@ -63,11 +101,13 @@ function chebyshevPiece(f: (t: number) => number, t0: number, dt: number, out: F
  *   (DLMF 13.7.3), K ∈ {4, 8, 14, 24} the fewest terms whose truncation error is below
  *   3e-17 at that b (thresholds precomputed);
  * - max(b_c, 1e-8) ≤ b < b_asym: piecewise Chebyshev interpolation of U in t = ln b
- *   (intervals of 0.5 in t, 16 coefficients each, built from `tricomiU2`). U is analytic in
- *   the strip |Im t| < π, so the interpolation error is far below the 1e-14 accuracy of the
- *   nodes' values;
+ *   (intervals of 0.5 in t on a fixed grid from t = ln 1e-8, 16 coefficients each, built from
+ *   `tricomiU2`). U is analytic in the strip |Im t| < π, so the interpolation error is far below the
+ *   1e-14 accuracy of the nodes' values. U does not depend on ρ_c, so the pieces are computed once
+ *   per m and shared by all evaluators of that m (a map makes ~1000 evaluators, one per row and mesh);
  * - b < 1e-8 (only when ρ_c < 1.5e-4): `tricomiU2` directly (power series).
- * Construction costs ≈ 1 ms (≤ 60 intervals × 16 evaluations of `tricomiU2`).
+ * Construction costs ≈ 1 ms the first time an m needs its pieces (≤ 60 intervals × 16 evaluations
+ * of `tricomiU2`), then a few microseconds.
  * The returned function does not check its argument (NaN in → NaN out; ζ must be finite).
  * It agrees with `scaledPotential` to within 1e-14 relative (tested on m = 0…64).
  *
@@ -106,13 +146,12 @@ export function makeScaledPotential(m: number, rhoC: number): (zeta: number) => 
   const bAsym = threshold(ASYM_TERMS);
   const bLo = Math.max(bc, TABLE_B_MIN);
   const useTable = bLo < bAsym;
-  const t0 = Math.log(bLo);
-  const pieces = useTable ? Math.max(1, Math.ceil((Math.log(bAsym) - t0) / TABLE_DT)) : 0;
-  const table = new Float64Array(pieces * TABLE_N);
-  const u = (t: number): number => tricomiU2Unchecked(m, Math.exp(t));
-  for (let i = 0; i < pieces; i++) chebyshevPiece(u, t0 + i * TABLE_DT, TABLE_DT, table, i * TABLE_N);
   const invDt = 1 / TABLE_DT;
-  const lastPiece = pieces - 1;
+  // shared pieces firstPiece…lastPiece cover [bLo, bAsym]
+  const firstPiece = useTable ? Math.max(0, Math.floor((Math.log(bLo) - T_ORIGIN) * invDt)) : 0;
+  const lastPiece = useTable ? Math.max(firstPiece, Math.ceil((Math.log(bAsym) - T_ORIGIN) * invDt) - 1) : 0;
+  const table = useTable ? pieceTable(m, firstPiece, lastPiece) : new Float64Array(0);
+  const t0 = T_ORIGIN;
 
   return (zeta: number): number => {
     const b = 0.5 * zeta * zeta + bc;
@@ -126,7 +165,7 @@ export function makeScaledPotential(m: number, rhoC: number): (zeta: number) => 
     if (b < bLo) return -0.125 * tricomiU2Unchecked(m, b);
     const v = (Math.log(b) - t0) * invDt;
     let i = Math.floor(v);
-    if (i < 0) i = 0;
+    if (i < firstPiece) i = firstPiece;
     else if (i > lastPiece) i = lastPiece;
     const x = 2 * (v - i) - 1;
     const x2 = 2 * x;

@@ -27,6 +27,9 @@ function pruferAngle(g: number, gp: number, kappa: number): number {
   return g >= 0 ? Math.atan2(kappa * g, gp) : Math.atan2(-kappa * g, -gp);
 }
 
+/** Propagator scratch (module-level: no allocation per evaluation; the engine is single-threaded per worker). */
+const SCRATCH = new Float64Array(4);
+
 /**
  * F(ε) for coupling `lambda` on `mesh` (extended on demand).
  * @param odd false for even parity (g'(0) = 0), true for odd (g(0) = 0)
@@ -61,7 +64,7 @@ export function pruferMismatch(mesh: SinhMesh, lambda: number, eps: number, odd:
   mesh.ensure(xFar);
   const kFar = mesh.nodeAtOrBeyond(xFar);
   const st = mesh.step;
-  const m = new Float64Array(4); // propagator scratch, one per evaluation
+  const m = SCRATCH;
   const twoL = 2 * lambda;
   const twoE = 2 * eps;
 

@@ -27,10 +27,13 @@ import { MESH_STRIDE, type SinhMesh } from './sinhMesh.js';
 const TAIL_REL = 1e-9;
 const TAIL_ABS = 1e-16;
 
+/** Propagator scratch (module-level: no allocation per evaluation; the engine is single-threaded per worker). */
+const SCRATCH = new Float64Array(4);
+
 /** Ψ(λ) and the node count on the numerical range, for one parity. */
 export function zeroEnergyPhase(mesh: SinhMesh, lambda: number, odd: boolean, c4: number | undefined): number {
   const S = MESH_STRIDE;
-  const m = new Float64Array(4);
+  const m = SCRATCH;
   let g = odd ? 0 : 1;
   let gp = odd ? 1 : 0;
   let prevPos = true;
