@@ -19,6 +19,7 @@ import { SpeciesModule } from './species/species.module';
 import { PinsModule } from './pins/pins.module';
 import { ViewingLinksModule } from './viewing-links/viewing-links.module';
 import { DemoModule } from './demo/demo.module';
+import { LiveModule } from './live/live.module';
 
 export interface AppModuleOptions {
   /** Replaces the system clock (tests move time forward with it). */
@@ -56,6 +57,7 @@ export class AppModule implements NestModule {
         MapsModule,
         PinsModule,
         ViewingLinksModule,
+        LiveModule,
         DemoModule,
       ],
     };

@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import crypto from 'node:crypto';
+import { LIVE_HEARTBEAT_MS } from '@fieldbound/shared';
 
 /** Typed configuration, read once from the environment with local defaults. */
 export interface AppConfig {
@@ -33,6 +34,22 @@ export interface AppConfig {
     /** Port of the local fake SMTP server on 127.0.0.1 (0 picks a free one). */
     fakePort: number;
   };
+  /** Live map updates (server-sent events); see docs/operations.md. */
+  live: {
+    /** Interval of the comment line every stream gets (and of the access re-check). */
+    heartbeatMs: number;
+    /** Streams one server instance holds at most; one more answers 503. */
+    maxStreams: number;
+    /** Streams one account holds at most on one instance; one more answers 429. */
+    maxStreamsPerUser: number;
+    /** Days map events are kept for catch-up by Last-Event-ID; older ones are pruned hourly. */
+    retentionDays: number;
+  };
+  /**
+   * Prefix of rate-limit keys in the shared `rate_limit_hits` table. Instances serving one site share it
+   * (empty by default); tests give each application its own so one test's counters never reach another.
+   */
+  rateLimitScope?: string;
   database: {
     host: string;
     port: number;
@@ -117,6 +134,12 @@ export function loadConfig(): AppConfig {
       smtpUrl: process.env.FIELDBOUND_SMTP_URL || null,
       from: process.env.FIELDBOUND_MAIL_FROM ?? 'Fieldbound <no-reply@fieldbound.local>',
       fakePort: intFromEnv('FIELDBOUND_FAKE_SMTP_PORT', 0),
+    },
+    live: {
+      heartbeatMs: LIVE_HEARTBEAT_MS,
+      maxStreams: positiveIntFromEnv('FIELDBOUND_LIVE_MAX_STREAMS', 2000),
+      maxStreamsPerUser: positiveIntFromEnv('FIELDBOUND_LIVE_MAX_STREAMS_PER_USER', 20),
+      retentionDays: positiveIntFromEnv('FIELDBOUND_EVENT_RETENTION_DAYS', 7),
     },
     database: {
       host: process.env.FIELDBOUND_DB_HOST ?? '127.0.0.1',

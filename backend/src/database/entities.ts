@@ -16,7 +16,10 @@ import { TeamSpecies } from '../species/team-species.entity';
 import { Pin } from '../pins/pin.entity';
 import { PinReply } from '../pins/pin-reply.entity';
 import { ViewingLink } from '../viewing-links/viewing-link.entity';
+import { MapEvent } from '../live/map-event.entity';
+import { RateLimitHit } from '../rate-limit/rate-limit-hit.entity';
 
 export const ALL_ENTITIES = [User, RefreshToken, PasswordResetToken, Team, Membership, Invitation, AuditEvent,
   SavedMap, MapVersion, MapResultSummary, MapThumbnail, CatalogueSpecies, SpeciesList, TeamSpecies, Pin, PinReply, ViewingLink,
+  MapEvent, RateLimitHit,
 ] as const;

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { MikroOrmModule } from '@mikro-orm/nestjs';
+import { MapEventsModule } from '../live/map-events.module';
 import { TeamsModule } from '../teams/teams.module';
 import { MapAccessService } from './map-access.service';
 import { SavedMap } from './map.entity';
@@ -12,7 +13,7 @@ import { MapsService } from './maps.service';
 
 /** Saved maps, versions, summaries, thumbnails. Exports MapAccessService for pins and viewing links. */
 @Module({
-  imports: [TeamsModule, MikroOrmModule.forFeature([SavedMap, MapVersion, MapResultSummary, MapThumbnail])],
+  imports: [TeamsModule, MapEventsModule, MikroOrmModule.forFeature([SavedMap, MapVersion, MapResultSummary, MapThumbnail])],
   controllers: [MapsController],
   providers: [MapsService, MapAccessService, MapsPurgeService],
   exports: [MapAccessService, MapsPurgeService, MikroOrmModule],

@@ -6,6 +6,7 @@ import {
   type MapVersionSummary, type ResultSummary,
 } from '@fieldbound/shared';
 import { Clock } from '../common/clock';
+import { MapEventsService } from '../live/map-events.service';
 import type { UploadedBytes } from '../common/uploaded-file';
 import type { AuthUser } from '../common/current-user.decorator';
 import { fieldError } from '../common/validation';
@@ -34,6 +35,7 @@ export class MapsService {
     private readonly mapAccess: MapAccessService,
     private readonly teamAccess: TeamAccessService,
     private readonly clock: Clock,
+    private readonly events: MapEventsService,
   ) {}
 
   async list(teamId: string, query: ListMapsQueryDto): Promise<MapListResponse> {
@@ -211,7 +213,11 @@ export class MapsService {
     snapshot.restoredFrom = marks.restoredFrom ?? null;
     this.em.persist(snapshot);
     try {
-      await this.em.flush();
+      await this.events.flushAndRecord(this.em, map.id, () => ({
+        kind: 'map.saved',
+        actorId: caller.id,
+        data: { version: map.version, title: map.title, updatedAt: now.toISOString() },
+      }));
     } catch (error) {
       if (!(error instanceof UniqueConstraintViolationException)) throw error;
       this.em.clear();

@@ -5,6 +5,7 @@ import { canonicalJson, type PinDetail, type PinGeometry, type PinReplyView, typ
 import { Clock } from '../common/clock';
 import type { AuthUser } from '../common/current-user.decorator';
 import type { AppConfig } from '../config/configuration';
+import { MapEventsService } from '../live/map-events.service';
 import { MailService } from '../mail/mail.service';
 import { MapAccessService } from '../maps/map-access.service';
 import { versionConflict } from '../maps/map-errors';
@@ -56,6 +57,7 @@ export class PinsService {
     private readonly mail: MailService,
     private readonly config: ConfigService<AppConfig, true>,
     private readonly clock: Clock,
+    private readonly events: MapEventsService,
   ) {}
 
   async list(mapId: string, caller: AuthUser, status?: 'open' | 'resolved'): Promise<PinView[]> {
@@ -72,7 +74,7 @@ export class PinsService {
     pin.body = dto.body ?? '';
     pin.category = dto.category ?? null;
     this.em.persist(pin);
-    await this.em.flush();
+    await this.events.flushAndRecord(this.em, map.id, () => ({ kind: 'pin.created', actorId: caller.id, data: { pin: toPinView(pin) } }));
     await this.notifyMentions({ pin, map, author, text: pin.body, previousText: null, inReply: false });
     return toPinView(pin);
   }
@@ -113,7 +115,7 @@ export class PinsService {
     pin.updatedBy = by;
     try {
       // MikroORM adds `where version = ?` and bumps the version: a concurrent writer loses here.
-      await this.em.flush();
+      await this.events.flushAndRecord(this.em, map.id, () => ({ kind: 'pin.updated', actorId: caller.id, data: { pin: toPinView(pin) } }));
     } catch (error) {
       if (!(error instanceof OptimisticLockError)) throw error;
       this.em.clear();
@@ -126,8 +128,9 @@ export class PinsService {
   }
 
   async remove(pinId: string, caller: AuthUser): Promise<void> {
-    const { pin } = await this.load(pinId, caller, 'editor');
-    await this.em.remove(pin).flush();
+    const { pin, map } = await this.load(pinId, caller, 'editor');
+    this.em.remove(pin);
+    await this.events.flushAndRecord(this.em, map.id, () => ({ kind: 'pin.deleted', actorId: caller.id, data: { pinId: pin.id } }));
   }
 
   async reply(pinId: string, caller: AuthUser, dto: CreateReplyDto): Promise<PinReplyView> {
@@ -135,7 +138,11 @@ export class PinsService {
     const author = await this.em.findOneOrFail(User, caller.id);
     const reply = new PinReply(pin, author, dto.body, this.clock.now());
     this.em.persist(reply);
-    await this.em.flush();
+    await this.events.flushAndRecord(this.em, map.id, async (tx) => ({
+      kind: 'pin.replied',
+      actorId: caller.id,
+      data: { pinId: pin.id, reply: toReplyView(reply), replyCount: await tx.count(PinReply, { pin: pin.id }) },
+    }));
     await this.notifyMentions({ pin, map, author, text: reply.body, previousText: null, inReply: true });
     return toReplyView(reply);
   }
@@ -148,7 +155,13 @@ export class PinsService {
     if (reply.author?.id !== caller.id && !roleAtLeast(membership.role, 'editor')) {
       throw new ForbiddenException({ statusCode: 403, code: 'not_reply_author', message: 'Only its author or an editor can delete a reply.' });
     }
-    await this.em.remove(reply).flush();
+    this.em.remove(reply);
+    // No event kind for a removed reply: the pin as it is now carries the new reply count.
+    await this.events.flushAndRecord(this.em, pin.map.id, async (tx) => ({
+      kind: 'pin.updated',
+      actorId: caller.id,
+      data: { pin: { ...toPinView(pin), replyCount: await tx.count(PinReply, { pin: pin.id }) } },
+    }));
   }
 
   private async load(pinId: string, caller: AuthUser, minimumRole: TeamRole): Promise<{ pin: Pin; map: SavedMap; membership: Membership }> {

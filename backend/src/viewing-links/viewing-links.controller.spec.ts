@@ -112,7 +112,7 @@ describe('viewing links: what a holder sees', () => {
     await call('POST', `/pins/${pin.body.id}/replies`, { as: cast.viewer, json: { body: 'internal remark' } });
     const link = await newLink(map.id, { includePins: true });
     const view = await call('GET', `/view/${link.token}`);
-    expect(view.body.pins).toEqual([{ geometry: { kind: 'point', at: { alpha: 290, fieldTesla: 100 } }, title: 'Look here', body: 'the m = 0 edge', status: 'open', category: null }]);
+    expect(view.body.pins).toEqual([{ id: pin.body.id, geometry: { kind: 'point', at: { alpha: 290, fieldTesla: 100 } }, title: 'Look here', body: 'the m = 0 edge', status: 'open', category: null }]);
     expect(JSON.stringify(view.body)).not.toContain('internal remark');
     expect(JSON.stringify(view.body)).not.toContain(cast.editor.id);
   });

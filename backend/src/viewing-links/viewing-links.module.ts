@@ -4,5 +4,5 @@ import { ViewingLinksController } from './viewing-links.controller';
 import { ViewingLinksService } from './viewing-links.service';
 
 /** Read-only viewing links to one map; the public `GET /api/view/:token` is the only route without sign-in. */
-@Module({ imports: [MapsModule], controllers: [ViewingLinksController], providers: [ViewingLinksService] })
+@Module({ imports: [MapsModule], controllers: [ViewingLinksController], providers: [ViewingLinksService], exports: [ViewingLinksService] })
 export class ViewingLinksModule {}

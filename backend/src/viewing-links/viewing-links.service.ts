@@ -82,16 +82,22 @@ export class ViewingLinksService {
    * Unknown or revoked → 404; expired → 410.
    */
   async view(token: string): Promise<SharedMapView> {
-    if (!looksLikeViewingToken(token)) throw linkNotFound();
-    const link = await this.em.findOne(ViewingLink, { tokenHash: hashViewingToken(token) }, { populate: ['map'] });
-    if (!link || link.revokedAt || link.map.deletedAt) throw linkNotFound();
+    const link = await this.findUsable(token);
     const now = this.clock.now();
-    if (link.expiresAt && link.expiresAt.getTime() <= now.getTime()) {
-      throw new GoneException({ statusCode: 410, code: 'viewing_link_expired', message: 'This viewing link has expired. Ask the person who shared it for a new one.' });
-    }
     // Counted in the database so simultaneous views are all counted.
     await this.em.nativeUpdate(ViewingLink, { id: link.id }, { viewCount: raw('view_count + 1'), lastViewedAt: now } as never);
     const pins = link.includePins ? await this.em.find(Pin, { map: link.map }, { orderBy: { createdAt: 'asc', id: 'asc' } }) : null;
     return { title: link.map.title, description: link.map.description, setup: link.map.setup, pins: pins ? pins.map(toSharedPin) : null };
+  }
+
+  /** The link behind a token, with its map, if it may be used now. Unknown or revoked → 404; expired → 410. Counts nothing. */
+  async findUsable(token: string): Promise<ViewingLink> {
+    if (!looksLikeViewingToken(token)) throw linkNotFound();
+    const link = await this.em.findOne(ViewingLink, { tokenHash: hashViewingToken(token) }, { populate: ['map'] });
+    if (!link || link.revokedAt || link.map.deletedAt) throw linkNotFound();
+    if (link.expiresAt && link.expiresAt.getTime() <= this.clock.now().getTime()) {
+      throw new GoneException({ statusCode: 410, code: 'viewing_link_expired', message: 'This viewing link has expired. Ask the person who shared it for a new one.' });
+    }
+    return link;
   }
 }
