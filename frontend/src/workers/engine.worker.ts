@@ -2,52 +2,61 @@
 // The engine worker: imports only the engine (@fieldbound/shared) and comlink. One instance per pool slot.
 import { expose, transfer } from 'comlink';
 import {
-  allocateCellMotionOutput, bindingMap, classifyCells, levels, validateMotionSettings,
-  type BindingMapResult, type LevelsInput, type MapSetup, type MotionSettingsInput, type PhaseMapResult,
+  evaluateBindingMapRows, levels, motionSettingsFromSetup, motionStates, phaseMap, prepareBindingMap,
+  type BindingMapModel, type BindingMapResult, type LevelsInput, type MapSetup, type PhaseMapResult,
 } from '@fieldbound/shared';
-import type { EngineWorkerApi } from './engineContract';
+import type { EngineWorkerApi, MapRowsResult } from './engineContract';
+import { probeMotionInputs } from './probeMotion';
 
 /** Progress messages at most every 50 ms: each one is a postMessage to the page. */
 const PROGRESS_INTERVAL_MS = 50;
 
-function buffersOf(r: BindingMapResult): ArrayBuffer[] {
-  return [r.alphas, r.fieldsAu, r.bindingHartree, r.counts, r.flags].map((a) => a.buffer as ArrayBuffer);
+function throttled(onProgress: (cellsDone: number) => void) {
+  let last = 0;
+  return (p: { done: number; total: number }) => {
+    const now = performance.now();
+    if (now - last >= PROGRESS_INTERVAL_MS || p.done === p.total) {
+      last = now;
+      void onProgress(p.done);
+    }
+  };
+}
+
+function bindingBuffers(r: BindingMapResult): ArrayBuffer[] {
+  // `alphas` is shared with the model (not copied per block), so it is cloned rather than transferred.
+  return [r.fieldsAu, r.bindingHartree, r.counts, r.flags].map((a) => a.buffer as ArrayBuffer);
+}
+
+function phaseBuffers(p: PhaseMapResult): ArrayBuffer[] {
+  return [p.stateClass, p.widthHartree, p.widthFlags, p.survivors, ...(p.fractions ? [p.fractions] : [])].map((a) => a.buffer as ArrayBuffer);
 }
 
 const api: EngineWorkerApi = {
-  async bindingMap(setup: MapSetup, onProgress: (cellsDone: number) => void) {
-    let last = 0;
-    const result = bindingMap(setup, {
-      onProgress: (p) => {
-        const now = performance.now();
-        if (now - last >= PROGRESS_INTERVAL_MS || p.done === p.total) {
-          last = now;
-          void onProgress(p.done);
-        }
-      },
-    });
-    return transfer(result, buffersOf(result));
+  async prepareMap(setup: MapSetup, tolerance: number | undefined, onProgress: (cellsDone: number) => void) {
+    return prepareBindingMap(setup, { tolerance, onProgress: throttled(onProgress) });
   },
-  async levelsAt(input: LevelsInput) {
-    return levels(input);
+  async evaluateRows(model: BindingMapModel, rowStart: number, rowEnd: number, motionSetup: MapSetup | null, onProgress: (cellsDone: number) => void) {
+    const report = throttled(onProgress);
+    const window = evaluateBindingMapRows(model, rowStart, rowEnd, { onProgress: (p) => report({ done: Math.floor(p.done / 2), total: p.total }) });
+    const { rowStart: _s, rowEnd: _e, ...binding } = window;
+    void _s;
+    void _e;
+    // Ion motion on these rows only: the engine's phaseMap reuses the binding energies just computed.
+    const phase = motionSetup && motionSettingsFromSetup(motionSetup) ? phaseMap(motionSetup, binding) : null;
+    report({ done: binding.cellCount, total: binding.cellCount });
+    const result: MapRowsResult = { binding, phase };
+    return transfer(result, [...bindingBuffers(binding), ...(phase ? phaseBuffers(phase) : [])]);
   },
-  async phaseMap(binding: BindingMapResult, input: MotionSettingsInput) {
-    const t0 = performance.now();
-    const settings = validateMotionSettings(input);
-    const out = allocateCellMotionOutput(binding, settings);
-    classifyCells(binding, settings, out);
-    // (Written as an assertion so it fits the result contract with or without the per-state width flags.)
-    const result = {
-      engineVersion: binding.engineVersion,
-      stateClass: out.stateClass,
-      widthHartree: out.widthHartree,
-      widthFlags: out.flags,
-      survivors: out.survivors,
-      fractions: out.fractions,
-      elapsedMs: performance.now() - t0,
-    } as PhaseMapResult;
-    const buffers = [out.stateClass, out.widthHartree, out.flags, out.survivors, ...(out.fractions ? [out.fractions] : [])].map((a) => a.buffer as ArrayBuffer);
-    return transfer(result, buffers);
+  async phaseRows(setup: MapSetup, binding: BindingMapResult) {
+    const phase = phaseMap(setup, binding);
+    return transfer(phase, phaseBuffers(phase));
+  },
+  async probeAt(input: LevelsInput, motionSetup: MapSetup) {
+    const states = levels(input);
+    const settings = motionSettingsFromSetup(motionSetup);
+    // States below the energy floor count as absent, exactly as on the map (stored there as ε = 0).
+    const motion = settings ? motionStates({ fieldAu: input.fieldAu, states: probeMotionInputs(states), motion: settings }) : null;
+    return { levels: states, motion };
   },
 };
 

@@ -1,16 +1,41 @@
-import type { BindingMapResult, LevelsInput, LevelState, MapSetup, MotionSettingsInput, PhaseMapResult } from '@fieldbound/shared';
+import type {
+  BindingMapModel, BindingMapResult, LevelState, LevelsInput, MapSetup, MotionStateResult, PhaseMapResult,
+} from '@fieldbound/shared';
+
+/** Binding energies of some rows of a map and, when ion motion is set, their moving-ion classes (same rows). */
+export interface MapRowsResult {
+  binding: BindingMapResult;
+  phase: PhaseMapResult | null;
+}
+
+/** Every state at one point (the probe): the fixed-atom levels and, with ion motion, each state's width and class. */
+export interface ProbeResult {
+  levels: LevelState[];
+  /** One entry per level (same order), from the engine's `motionStates`; null when the atom is held fixed. */
+  motion: MotionStateResult[] | null;
+}
 
 /**
  * The typed contract of the engine worker (engine.worker.ts), called through comlink. Errors thrown inside cross
  * the boundary with their `name` and `message` only; results come back with their ArrayBuffers transferred.
+ *
+ * A map is computed in two steps so that several workers share one preparation: `prepareMap` builds the engine's
+ * interpolation model once (small plain data, posted back), then `evaluateRows` fills row blocks from it in any
+ * worker. Ion motion is applied to each block by the engine's `phaseMap`, which reuses the binding energies;
+ * `phaseRows` reclassifies rows already computed when only the motion settings or the observation time change.
  */
 export interface EngineWorkerApi {
-  /** Whole binding map of `setup` (the pool passes one band of rows as its own setup); reports cells done. */
-  bindingMap(setup: MapSetup, onProgress: (cellsDone: number) => void): Promise<BindingMapResult>;
-  /** Every state at one point (the probe). */
-  levelsAt(input: LevelsInput): Promise<LevelState[]>;
-  /** Moving-ion classes, widths and survivors of a binding map (binding energies reused, never recomputed). */
-  phaseMap(binding: BindingMapResult, settings: MotionSettingsInput): Promise<PhaseMapResult>;
+  /** The engine's `prepareBindingMap` (model of every orbital over the setup's ranges); reports cells done. */
+  prepareMap(setup: MapSetup, tolerance: number | undefined, onProgress: (cellsDone: number) => void): Promise<BindingMapModel>;
+  /**
+   * Rows [rowStart, rowEnd) of the map from a prepared model (`evaluateBindingMapRows`), with the moving-ion classes
+   * of those rows when `motionSetup` asks for ion motion (`phaseMap(motionSetup, rows)`); reports cells done.
+   */
+  evaluateRows(model: BindingMapModel, rowStart: number, rowEnd: number, motionSetup: MapSetup | null, onProgress: (cellsDone: number) => void): Promise<MapRowsResult>;
+  /** Moving-ion classes of rows already computed (`phaseMap(setup, binding)`): binding energies are never recomputed. */
+  phaseRows(setup: MapSetup, binding: BindingMapResult): Promise<PhaseMapResult>;
+  /** Every state at one point (the probe), with `motionStates` for the setup's ion motion. */
+  probeAt(input: LevelsInput, motionSetup: MapSetup): Promise<ProbeResult>;
 }
 
 /** Why a computation did not finish. */

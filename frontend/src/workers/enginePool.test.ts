@@ -1,14 +1,14 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { defaultSetup, type MapProgress } from '@fieldbound/shared';
+import { STATE_CLASS, defaultSetup, type BindingMapResult, type MapProgress, type MapSetup } from '@fieldbound/shared';
 import { EnginePool, defaultPoolSize } from './enginePool';
 import { MapComputeError } from './engineContract';
-import { FakeEngineWorker, ThrowingWorker, fakeBindingMap } from './fakeWorkers';
+import { FakeEngineWorker, ThrowingWorker, fakeEngineApi } from './fakeWorkers';
 
 const setup = { ...defaultSetup(), grid: { nAlpha: 4, nField: 10 } };
 let pool: EnginePool | null = null;
 afterEach(() => pool?.dispose());
 
-const working = () => new FakeEngineWorker({ bindingMap: fakeBindingMap(10) }) as unknown as Worker;
+const working = () => new FakeEngineWorker(fakeEngineApi()) as unknown as Worker;
 
 describe('defaultPoolSize', () => {
   it('uses one worker per core, at least 1 and at most 4', () => {
@@ -22,7 +22,8 @@ describe('EnginePool.computeMap', () => {
   it('splits 10 rows over 2 workers, joins them in order and reports every cell done', async () => {
     pool = new EnginePool({ createWorker: working, size: 2 });
     const progress: MapProgress[] = [];
-    const result = await pool.computeMap(setup, { timeoutMs: 5000, onProgress: (p) => progress.push(p) });
+    const { binding: result, phase } = await pool.computeMap(setup, { timeoutMs: 5000, onProgress: (p) => progress.push(p) });
+    expect(phase).toBeNull(); // the atom is held fixed
     expect(result.nField).toBe(10);
     expect(Array.from(result.fieldsAu)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]);
     expect(result.bindingHartree[9 * 4]).toBeCloseTo(10e-9, 20);
@@ -33,9 +34,9 @@ describe('EnginePool.computeMap', () => {
     const created: (ThrowingWorker | FakeEngineWorker)[] = [];
     pool = new EnginePool({
       size: 2,
-      // The first two workers throw; every replacement works.
+      // The first worker throws; the second and every replacement work.
       createWorker: () => {
-        const w = created.length < 2 ? new ThrowingWorker() : new FakeEngineWorker({ bindingMap: fakeBindingMap(10) });
+        const w = created.length < 1 ? new ThrowingWorker() : new FakeEngineWorker(fakeEngineApi());
         created.push(w);
         return w as unknown as Worker;
       },
@@ -44,10 +45,10 @@ describe('EnginePool.computeMap', () => {
     expect(failure).toBeInstanceOf(MapComputeError);
     expect((failure as MapComputeError).kind).toBe('crash');
     expect((failure as MapComputeError).message).toBe('The engine worker stopped unexpectedly: Uncaught RangeError: Maximum call stack size exceeded.');
-    // Both broken workers were terminated and replaced.
-    expect(created.slice(0, 2).every((w) => w.terminated)).toBe(true);
-    expect(created).toHaveLength(4);
-    const result = await pool.computeMap(setup, { timeoutMs: 5000 });
+    // The broken worker (it got the first call) was terminated and replaced.
+    expect(created[0].terminated).toBe(true);
+    expect(created).toHaveLength(3);
+    const { binding: result } = await pool.computeMap(setup, { timeoutMs: 5000 });
     expect(result.nField).toBe(10);
   });
 
@@ -56,7 +57,7 @@ describe('EnginePool.computeMap', () => {
       size: 1,
       createWorker: () =>
         new FakeEngineWorker({
-          bindingMap: async () => {
+          prepareMap: async () => {
             const e = new Error('alpha must be positive and finite, got NaN');
             e.name = 'EngineInputError';
             throw e;
@@ -73,7 +74,7 @@ describe('EnginePool.computeMap', () => {
     pool = new EnginePool({
       size: 1,
       createWorker: () => {
-        const w = new FakeEngineWorker({ bindingMap: () => new Promise(() => {}) });
+        const w = new FakeEngineWorker({ prepareMap: () => new Promise(() => {}) });
         created.push(w);
         return w as unknown as Worker;
       },
@@ -90,7 +91,7 @@ describe('EnginePool.computeMap', () => {
     pool = new EnginePool({
       size: 1,
       createWorker: () => {
-        const w = new FakeEngineWorker({ bindingMap: () => new Promise(() => {}) });
+        const w = new FakeEngineWorker({ prepareMap: () => new Promise(() => {}) });
         created.push(w);
         return w as unknown as Worker;
       },
@@ -103,5 +104,45 @@ describe('EnginePool.computeMap', () => {
     expect(failure.kind).toBe('cancelled');
     expect(failure.message).toBe('Computation cancelled.');
     expect(created[0].terminated).toBe(true);
+  });
+});
+
+/** Counts the calls of each method of a fake engine (shared by every worker of a pool). */
+function countingApi(calls: Record<string, number>) {
+  const api = fakeEngineApi();
+  const count = <A extends unknown[], R>(name: string, f: (...args: A) => R) => (...args: A) => {
+    calls[name] = (calls[name] ?? 0) + 1;
+    return f(...args);
+  };
+  return { prepareMap: count('prepareMap', api.prepareMap), evaluateRows: count('evaluateRows', api.evaluateRows), phaseRows: count('phaseRows', api.phaseRows) };
+}
+
+describe('EnginePool with ion motion', () => {
+  const moving: MapSetup = { ...setup, motion: { kind: 'temperature', kelvin: 4 } };
+
+  it('prepares the model once, fills 4 bands from it and joins their classes in row order', async () => {
+    const calls: Record<string, number> = {};
+    pool = new EnginePool({ createWorker: () => new FakeEngineWorker(countingApi(calls)) as unknown as Worker, size: 2 });
+    const { binding, phase } = await pool.computeMap(moving, { timeoutMs: 5000, motionSetup: moving });
+    expect(calls).toEqual({ prepareMap: 1, evaluateRows: 4 });
+    // Fake classes: rows 4…9 (ε ≥ 5 × 10⁻⁹) bound, rows 0…3 resonances; 4 columns per row.
+    expect(Array.from(phase!.survivors)).toEqual(Array.from({ length: 40 }, (_, c) => (Math.floor(c / 4) >= 4 ? 1 : 0)));
+    expect(phase!.stateClass[3 * 4]).toBe(STATE_CLASS.RESONANCE);
+    expect(phase!.stateClass[4 * 4]).toBe(STATE_CLASS.BOUND);
+    expect(binding.nField).toBe(10);
+  });
+
+  it('reclassifies a computed map for new motion settings with phaseRows only (no preparation, no binding rows)', async () => {
+    const calls: Record<string, number> = {};
+    pool = new EnginePool({ createWorker: () => new FakeEngineWorker(countingApi(calls)) as unknown as Worker, size: 2 });
+    const { binding } = await pool.computeMap(setup, { timeoutMs: 5000 });
+    const before: BindingMapResult = { ...binding, bindingHartree: binding.bindingHartree.slice() };
+    const phase = await pool.computePhase(moving, binding, { timeoutMs: 5000 });
+    expect(calls).toEqual({ prepareMap: 1, evaluateRows: 4, phaseRows: 4 });
+    expect(phase.survivors).toHaveLength(40);
+    expect(phase.survivors[39]).toBe(1);
+    expect(phase.survivors[0]).toBe(0);
+    // The map handed in is left intact (its bands were copied before they were sent).
+    expect(Array.from(binding.bindingHartree)).toEqual(Array.from(before.bindingHartree));
   });
 });

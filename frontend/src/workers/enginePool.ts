@@ -1,8 +1,12 @@
-import { wrap, proxy, type Remote } from 'comlink';
-import type { BindingMapResult, MapSetup, MapProgress } from '@fieldbound/shared';
-import { MapComputeError, toComputeError, type EngineWorkerApi } from './engineContract';
+import { wrap, proxy, transfer, type Remote } from 'comlink';
+import type { BindingMapModel, BindingMapResult, MapProgress, MapSetup, PhaseMapResult } from '@fieldbound/shared';
+import { MapComputeError, toComputeError, type EngineWorkerApi, type MapRowsResult } from './engineContract';
 import { mergeBands } from './mergeBands';
-import { bandSetup, splitRows } from './rowBands';
+import { mergePhases, sliceRows } from './mergePhases';
+import { splitRows } from './rowBands';
+
+/** Share of a map's progress count given to preparing the engine's model. */
+const PREPARE_SHARE = 0.4;
 
 /** Workers for whole maps: one per core, at least 1, at most 4. */
 export function defaultPoolSize(hardwareConcurrency: number | undefined): number {
@@ -25,6 +29,12 @@ export interface ComputeMapOptions extends RunOptions {
   onProgress?: (progress: MapProgress) => void;
   /** Bands per worker: more bands balance uneven rows better. Default 2. */
   bandsPerWorker?: number;
+  /** Exact number of row bands (overrides bandsPerWorker; the quick first pass uses 1). */
+  bands?: number;
+  /** Accuracy of the engine's model (default: the engine's 1e-6); the quick first pass asks for less. */
+  tolerance?: number;
+  /** The setup whose ion motion classifies the rows (null or motion "none": binding energies only). */
+  motionSetup?: MapSetup | null;
 }
 
 interface Job {
@@ -63,31 +73,79 @@ export class EnginePool {
     return this.slots.length;
   }
 
-  /** Computes the whole binding map of `setup`, split by rows over the pool. */
-  async computeMap(setup: MapSetup, options: ComputeMapOptions): Promise<BindingMapResult> {
-    const bands = splitRows(setup.grid.nField, this.size * (options.bandsPerWorker ?? 2));
-    const total = setup.grid.nAlpha * setup.grid.nField;
+  /**
+   * Computes the map of `setup` over the pool: one worker prepares the engine's model (`prepareMap`), then every
+   * worker fills row bands from it (`evaluateRows`), each band classified for `motionSetup`'s ion motion by the
+   * engine's `phaseMap`. Results are joined in row order. Progress counts the preparation as 40 % of the cells.
+   */
+  async computeMap(setup: MapSetup, options: ComputeMapOptions): Promise<MapRowsResult> {
+    const nField = setup.grid.nField;
+    const total = setup.grid.nAlpha * nField;
+    const bands = splitRows(nField, options.bands ?? this.size * (options.bandsPerWorker ?? 2));
+    let prepared = 0;
     const done = new Array<number>(bands.length).fill(0);
-    const report = () => options.onProgress?.({ done: done.reduce((s, d) => s + d, 0), total });
-    return this.runJob(options, (submit) =>
-      Promise.all(
+    const report = () => {
+      const value = Math.floor(PREPARE_SHARE * prepared + (1 - PREPARE_SHARE) * done.reduce((s, d) => s + d, 0));
+      options.onProgress?.({ done: Math.min(total, value), total });
+    };
+    const motionSetup = options.motionSetup ?? null;
+    return this.runJob(options, async (submit) => {
+      const model = await submit<BindingMapModel>((api) =>
+        api.prepareMap(
+          setup,
+          options.tolerance,
+          proxy((cells: number) => {
+            prepared = cells;
+            report();
+          }),
+        ),
+      );
+      prepared = total;
+      report();
+      const parts = await Promise.all(
         bands.map((band, k) =>
-          submit<BindingMapResult>((api) =>
-            api.bindingMap(
-              bandSetup(setup, band),
+          submit<MapRowsResult>((api) =>
+            api.evaluateRows(
+              model,
+              band.start,
+              band.end + 1,
+              motionSetup,
               proxy((cells: number) => {
                 done[k] = cells;
                 report();
               }),
             ),
-          ).then((result) => {
+          ).then((part) => {
             done[k] = (band.end - band.start + 1) * setup.grid.nAlpha;
             report();
-            return result;
+            return part;
           }),
         ),
-      ).then(mergeBands),
-    );
+      );
+      const binding = mergeBands(parts.map((p) => p.binding));
+      const phases = parts.map((p) => p.phase);
+      const phase = phases.every((p): p is PhaseMapResult => p !== null)
+        ? mergePhases(phases, parts.map((p) => p.binding.cellCount), binding.mMax + 1, binding.levelsPerOrbital)
+        : null;
+      return { binding, phase };
+    });
+  }
+
+  /**
+   * Moving-ion classes of a computed map for `setup`'s ion motion, split by rows over the pool (the engine's
+   * `phaseMap` per band). The binding energies are reused as they are: nothing of the binding map is recomputed.
+   */
+  async computePhase(setup: MapSetup, binding: BindingMapResult, options: RunOptions & { bandsPerWorker?: number }): Promise<PhaseMapResult> {
+    const bands = splitRows(binding.nField, this.size * (options.bandsPerWorker ?? 2), 1);
+    return this.runJob(options, async (submit) => {
+      const parts = await Promise.all(
+        bands.map((band) => {
+          const rows = sliceRows(binding, band.start, band.end);
+          return submit<PhaseMapResult>((api) => api.phaseRows(setup, transfer(rows, [rows.bindingHartree.buffer as ArrayBuffer, rows.counts.buffer as ArrayBuffer, rows.flags.buffer as ArrayBuffer])));
+        }),
+      );
+      return mergePhases(parts, bands.map((b) => (b.end - b.start + 1) * binding.nAlpha), binding.mMax + 1, binding.levelsPerOrbital);
+    });
   }
 
   /** Runs one call on the next free worker (the probe), with the same timeout and failure rules. */

@@ -1,6 +1,6 @@
 // Test doubles for engine workers (tests only; the app always runs the real engine.worker.ts).
 import { expose } from 'comlink';
-import type { BindingMapResult, MapSetup } from '@fieldbound/shared';
+import { STATE_CLASS, type BindingMapModel, type BindingMapResult, type MapSetup, type PhaseMapResult } from '@fieldbound/shared';
 import type { EngineWorkerApi } from './engineContract';
 
 /**
@@ -41,14 +41,37 @@ export class ThrowingWorker extends EventTarget {
 }
 
 /**
- * A tiny deterministic "engine" for pool tests: ε = (row + 1) · 10⁻⁹ hartree for m = 0 in every cell, m ≥ 1
- * unbound, where the row is found from the band's lowest field on the parent's 1…45 T log axis of `rows` rows.
+ * A tiny deterministic "engine" for pool and page tests: ε = (row + 1) · 10⁻⁹ hartree for m = 0 in every cell,
+ * m ≥ 1 unbound. The fake model is just the setup; rows are those of the setup's own grid. Ion motion: every state
+ * with ε ≥ 5 · 10⁻⁹ hartree is bound, the others are resonances (enough to see which rows were classified).
  */
-export function fakeBindingMap(rows: number) {
-  return async (setup: MapSetup, onProgress: (cells: number) => void): Promise<BindingMapResult> => {
-    const start = Math.round((Math.log(setup.fieldAxis.min) / Math.log(45)) * (rows - 1));
-    return fakeBand(setup, start, start + setup.grid.nField - 1, onProgress);
+export function fakeEngineApi(options: { prepareDelayMs?: number } = {}): Pick<EngineWorkerApi, 'prepareMap' | 'evaluateRows' | 'phaseRows'> {
+  return {
+    async prepareMap(setup: MapSetup, _tolerance: number | undefined, onProgress: (cells: number) => void) {
+      if (options.prepareDelayMs) await new Promise((r) => setTimeout(r, options.prepareDelayMs));
+      await onProgress(setup.grid.nAlpha * setup.grid.nField);
+      return { setup } as unknown as BindingMapModel;
+    },
+    async evaluateRows(model: BindingMapModel, rowStart: number, rowEnd: number, motionSetup: MapSetup | null, onProgress: (cells: number) => void) {
+      const binding = fakeBand(model.setup, rowStart, rowEnd - 1, onProgress);
+      return { binding, phase: motionSetup && motionSetup.motion.kind !== 'none' ? fakePhase(binding) : null };
+    },
+    async phaseRows(_setup: MapSetup, binding: BindingMapResult) {
+      return fakePhase(binding);
+    },
   };
+}
+
+function fakePhase(binding: BindingMapResult): PhaseMapResult {
+  const n = binding.bindingHartree.length;
+  const stateClass = new Uint8Array(n);
+  const survivors = new Uint16Array(binding.cellCount);
+  for (let k = 0; k < n; k++) {
+    const e = binding.bindingHartree[k];
+    stateClass[k] = e <= 0 ? STATE_CLASS.NONE : e >= 5e-9 ? STATE_CLASS.BOUND : STATE_CLASS.RESONANCE;
+    if (stateClass[k] === STATE_CLASS.BOUND) survivors[k % binding.cellCount]++;
+  }
+  return { engineVersion: 'fake', stateClass, widthHartree: new Float64Array(n), widthFlags: new Uint8Array(n), survivors, fractions: null, elapsedMs: 1 };
 }
 
 function fakeBand(setup: MapSetup, start: number, end: number, onProgress: (cells: number) => void): BindingMapResult {

@@ -4,7 +4,7 @@ import { MemoryRouter } from 'react-router-dom';
 import { App as AntdApp } from 'antd';
 import { defaultSetup } from '@fieldbound/shared';
 import { ExplorerPage } from './ExplorerPage';
-import { FakeEngineWorker, ThrowingWorker, fakeBindingMap } from '../../workers/fakeWorkers';
+import { FakeEngineWorker, ThrowingWorker, fakeEngineApi } from '../../workers/fakeWorkers';
 import { geometryFromFields } from '../map-render/mapGeometry';
 
 // A 4 × 4 map (no coarse pass) so the fake engine answers at once.
@@ -14,7 +14,7 @@ const contourWorker = () => new FakeEngineWorker({ geometry: geometryFromFields 
 describe('ExplorerPage when the engine worker fails', () => {
   it('shows a clear message with Retry (no endless spinner), and Retry computes the map with fresh workers', { timeout: 30_000 }, async () => {
     let broken = true;
-    const engineWorker = () => (broken ? new ThrowingWorker() : new FakeEngineWorker({ bindingMap: fakeBindingMap(4) })) as unknown as Worker;
+    const engineWorker = () => (broken ? new ThrowingWorker() : new FakeEngineWorker(fakeEngineApi())) as unknown as Worker;
     render(
       <MemoryRouter initialEntries={['/explore']}>
         <AntdApp>

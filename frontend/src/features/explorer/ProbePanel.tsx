@@ -1,12 +1,14 @@
 import { memo, useEffect, useMemo, useState } from 'react';
 import { App, Alert, Button, Descriptions, Space, Spin, Table, Tag, Tooltip, Typography } from 'antd';
 import { CopyOutlined } from '@ant-design/icons';
-import { teslaToAtomic, toHartree, type LevelState, type MapSetup, type Tesla } from '@fieldbound/shared';
+import { teslaToAtomic, toHartree, type MapSetup, type Tesla } from '@fieldbound/shared';
 import { ALPHA_UNIT_LABEL, ENERGY_UNIT_LABEL, FIELD_UNIT_LABEL, alphaToDisplay, energyToDisplay, fieldTeslaToDisplay } from '../map-render/displayUnits';
 import { formatScientific } from '../map-render/formatNumber';
+import { palette } from '../../theme/palette';
+import { motionKey } from './hooks/useMapComputation';
 import type { EnginePool } from '../../workers/enginePool';
 import type { MapComputeError } from '../../workers/engineContract';
-import { FLAG_TEXT, probeAsText } from './probeText';
+import { ADIABATIC_LIMIT, FLAG_TEXT, classText, lifetimeText, motionText, probeAsText, probeRows, widthText, type ProbeRow } from './probeText';
 import { PotentialChart, RingChart } from './ProbeCharts';
 import type { ProbePoint } from './viewState';
 
@@ -16,9 +18,12 @@ export interface ProbePanelProps {
   pool: EnginePool | null;
 }
 
-type ProbeState = { status: 'loading' } | { status: 'done'; states: LevelState[] } | { status: 'error'; error: MapComputeError };
+type ProbeState = { status: 'loading' } | { status: 'done'; rows: ProbeRow[] } | { status: 'error'; error: MapComputeError };
 
-/** Every state at the probed point, from the engine's per-point `levels`, with two small charts. */
+/**
+ * Every state at the probed point: the engine's per-point `levels` and, for the setup's ion motion, its `motionStates`
+ * (width, lifetime, class; fractions for thermal ions), with two small charts.
+ */
 export const ProbePanel = memo(function ProbePanel({ point, setup, pool }: ProbePanelProps) {
   const { message } = App.useApp();
   const [state, setState] = useState<ProbeState>({ status: 'loading' });
@@ -29,23 +34,27 @@ export const ProbePanel = memo(function ProbePanel({ point, setup, pool }: Probe
   const cutoff = setup.shortRange.cutoffBohr;
   const mMax = setup.orbitals.mMax;
   const floorHartree = toHartree('K', setup.energyFloorKelvin) as number;
+  // The probe is solved again only when the point, the physics or the motion settings change (not the display).
+  const moving = motionKey(setup);
+  // eslint-disable-next-line react-hooks/exhaustive-deps
+  const motionSetup = useMemo(() => setup, [moving]);
 
   useEffect(() => {
     if (!pool) return;
     let live = true;
     setState({ status: 'loading' });
     pool
-      .run((api) => api.levelsAt({ alpha: point.alpha, fieldAu, cutoffBohr: cutoff, mMax, energyFloorHartree: floorHartree }), { timeoutMs: 60_000 })
+      .run((api) => api.probeAt({ alpha: point.alpha, fieldAu, cutoffBohr: cutoff, mMax, energyFloorHartree: floorHartree }, motionSetup), { timeoutMs: 60_000 })
       .then(
-        (states) => live && setState({ status: 'done', states }),
+        (r) => live && setState({ status: 'done', rows: probeRows(r.levels, r.motion) }),
         (error: MapComputeError) => live && setState({ status: 'error', error }),
       );
     return () => {
       live = false;
     };
-  }, [pool, point.alpha, fieldAu, cutoff, mMax, floorHartree, attempt]);
+  }, [pool, point.alpha, fieldAu, cutoff, mMax, floorHartree, motionSetup, attempt]);
 
-  const states = state.status === 'done' ? state.states : [];
+  const states = state.status === 'done' ? state.rows : [];
   const chosen = useMemo(() => states.find((s) => `${s.m}:${s.nu}` === selected) ?? states[0] ?? null, [states, selected]);
   const eLabel = ENERGY_UNIT_LABEL[energyUnit];
 
@@ -83,7 +92,7 @@ export const ProbePanel = memo(function ProbePanel({ point, setup, pool }: Probe
       )}
       {state.status === 'done' && (
         <>
-          <Table<LevelState>
+          <Table<ProbeRow>
             size="small"
             pagination={false}
             rowKey={(s) => `${s.m}:${s.nu}`}
@@ -95,7 +104,26 @@ export const ProbePanel = memo(function ProbePanel({ point, setup, pool }: Probe
               { title: 'm', dataIndex: 'm', width: 44 },
               { title: 'ν', dataIndex: 'nu', width: 40 },
               { title: `Binding energy (${eLabel})`, key: 'e', render: (_, s) => formatScientific(energyToDisplay(s.bindingHartree, energyUnit), { digits: 4 }) },
-              { title: 'ε/B', key: 'eb', width: 90, render: (_, s) => formatScientific(s.bindingOverB, { digits: 3 }) },
+              { title: `Width Γ (${eLabel})`, key: 'w', render: (_, s) => widthText(s, energyUnit) },
+              { title: 'Lifetime ħ/Γ (s)', key: 'l', render: (_, s) => lifetimeText(s) },
+              {
+                title: 'Class',
+                key: 'c',
+                render: (_, s) => (
+                  <Tooltip title={s.fractions ? classText(s) : undefined}>
+                    <Tag color={s.class === 'bound' ? palette.bound : s.class === 'resonance' ? palette.resonance : undefined} style={{ marginInlineEnd: 0, color: s.class === 'bound' || s.class === 'resonance' ? '#fff' : undefined }}>
+                      {s.class}
+                    </Tag>
+                    {s.fractions && <div style={{ fontSize: 11, color: '#5b5d70' }}>{formatScientific(100 * s.fractions.bound, { digits: 3, plainMin: 0.01 })} % bound</div>}
+                  </Tooltip>
+                ),
+              },
+              {
+                title: <Tooltip title={`Adiabatic-validity ratio ε/B: the single-orbital reduction is trusted below ${ADIABATIC_LIMIT}.`}>ε/B</Tooltip>,
+                key: 'eb',
+                width: 80,
+                render: (_, s) => <span style={s.bindingOverB > ADIABATIC_LIMIT ? { color: palette.ink, fontWeight: 700, textDecoration: 'underline dotted' } : undefined}>{formatScientific(s.bindingOverB, { digits: 3 })}</span>,
+              },
               {
                 title: 'Flags',
                 key: 'f',
@@ -113,7 +141,7 @@ export const ProbePanel = memo(function ProbePanel({ point, setup, pool }: Probe
             ]}
           />
           <Typography.Text type="secondary" style={{ fontSize: 12 }}>
-            {states.length} states in orbitals m = 0…{mMax}. Width, lifetime and class of a moving ion are not shown yet: the engine’s ion-motion part is not available in the explorer.
+            {states.length} states in orbitals m = 0…{mMax}. Ion motion: {motionText(setup)}. Widths and classes from the engine’s moving-ion width table (accuracy of ln Γ about ±0.2 in the laboratory regime); radiative decay and collisions are not included.
           </Typography.Text>
           {chosen && (
             <>

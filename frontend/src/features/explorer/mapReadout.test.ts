@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { CODATA2018, type LevelState } from '@fieldbound/shared';
+import { CODATA2018, type LevelState, type MotionStateResult } from '@fieldbound/shared';
 import { bindingMapFromTable } from '../map-render/testGrids';
 import type { GridAxis } from '../map-render/gridGeometry';
 import { readoutAt } from './mapReadout';
-import { probeAsText } from './probeText';
+import { probeAsText, probeRows } from './probeText';
 import { defaultSetup } from '@fieldbound/shared';
 
 // 2 × 2 map: α = 1 and 10 a₀³, B = 10⁻⁶ and 10⁻⁵ a.u.; only the cell (α = 10, B = 10⁻⁵) binds, by 10⁻⁹ hartree.
@@ -30,13 +30,43 @@ describe('readoutAt', () => {
 });
 
 describe('probeAsText', () => {
-  it('writes the point and one tab-separated line per state in the chosen units', () => {
+  it('writes the point, the ion motion and one tab-separated line per state in the chosen units', () => {
     const state: LevelState = { m: 1, nu: 0, parity: 'even', bindingHartree: 1e-9, bindingOverB: 2.5e-3, relError: 3e-9, flags: ['non-adiabatic'] };
-    const text = probeAsText({ alpha: 164.2, tesla: 10 }, defaultSetup(), [state]);
+    const text = probeAsText({ alpha: 164.2, tesla: 10 }, defaultSetup(), probeRows([state], null));
     const lines = text.split('\n');
     expect(lines[0]).toMatch(/^Fieldbound probe \(model estimate/);
     expect(lines[1]).toBe('α = 164.2 a₀³ (164.2 a₀³)');
     expect(lines[2]).toBe('B = 10 T (10 T)');
-    expect(lines.at(-1)).toBe('1\t0\teven\t0.0272114\t0.0025\t3 × 10⁻⁹\tnon-adiabatic');
+    expect(lines[4]).toBe('ion motion: atom held fixed (no ion motion: no widths)');
+    // 1 nano-hartree = 0.0272114 µeV (CODATA 2018: 1 E_h = 27.211386245988 eV).
+    expect(lines.at(-1)).toBe('1\t0\teven\t0.0272114\t—\t—\tbound\t0.0025\t3 × 10⁻⁹\tnon-adiabatic');
+  });
+
+  it('writes width, lifetime, class and thermal fractions of a moving ion', () => {
+    const state: LevelState = { m: 0, nu: 0, parity: 'even', bindingHartree: 2e-9, bindingOverB: 1e-4, relError: 1e-9, flags: [] };
+    const motion: MotionStateResult = {
+      m: 0, nu: 0, bindingHartree: 2e-9, widthHartree: 1e-12, lifetimeSeconds: 2.4188843265857e-17 / 1e-12, shiftHartree: 0, class: 'resonance',
+      flags: ['channel-closed'], shapeNumber: 3, xi: NaN, fractions: { bound: 0.25, resonance: 0.5, unbound: 0.25 },
+    };
+    const setup = { ...defaultSetup(), motion: { kind: 'temperature' as const, kelvin: 4 } };
+    const line = probeAsText({ alpha: 10, tesla: 10 }, setup, probeRows([state], [motion])).split('\n').at(-1)!.split('\t');
+    expect(line[4]).toBe('2.721 × 10⁻⁵'); // 10⁻¹² E_h in µeV
+    expect(line[5]).toBe('2.419 × 10⁻⁵'); // ħ/Γ = 2.4188843265857 × 10⁻¹⁷ s / 10⁻¹² (CODATA 2018 atomic unit of time)
+    expect(line[6]).toBe('resonance at kT (bound 25 %, resonance 50 %, unbound 25 %)');
+    expect(line[9]).toBe('channel closed');
+  });
+});
+
+describe('probeRows', () => {
+  it('marks a state below the energy floor as such and gives it no width, whatever the motion part says', () => {
+    const below: LevelState = { m: 2, nu: 0, parity: 'even', bindingHartree: 1e-15, bindingOverB: 1e-10, relError: 1e-9, flags: ['below-floor'] };
+    const motion: MotionStateResult = { m: 2, nu: 0, bindingHartree: 0, widthHartree: NaN, lifetimeSeconds: NaN, shiftHartree: NaN, class: 'unbound', flags: [], shapeNumber: 3, xi: NaN };
+    expect(probeRows([below], [motion])[0]).toMatchObject({ class: 'below floor', widthHartree: null, lifetimeSeconds: null, flags: ['below-floor'] });
+  });
+
+  it('refuses motion results that do not line up with the levels', () => {
+    const state: LevelState = { m: 0, nu: 0, parity: 'even', bindingHartree: 1e-9, bindingOverB: 1e-4, relError: 1e-9, flags: [] };
+    const other: MotionStateResult = { m: 1, nu: 0, bindingHartree: 1e-9, widthHartree: 0, lifetimeSeconds: Infinity, shiftHartree: 0, class: 'bound', flags: [], shapeNumber: 3, xi: 1 };
+    expect(() => probeRows([state], [other])).toThrow(/motion state 0 is \(1, 0\), expected \(0, 0\)/);
   });
 });

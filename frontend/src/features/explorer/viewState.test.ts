@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseViewParams, writeViewParams } from './viewState';
+import { parseViewParams, roundProbe, writeViewParams } from './viewState';
 
 describe('view state in the URL', () => {
   it('round-trips a zoom window, the shown orbital and a probe point', () => {
@@ -16,5 +16,10 @@ describe('view state in the URL', () => {
   });
   it('reads the survivors view', () => {
     expect(parseViewParams(new URLSearchParams('show=survivors')).shown).toEqual({ kind: 'survivors' });
+  });
+  it('rounds a probe point to what the URL keeps, so reading the URL back gives the very same point', () => {
+    const p = roundProbe({ alpha: 164.12345678, tesla: 0.000123456789 });
+    expect(p).toEqual({ alpha: 164.123, tesla: 0.000123457 });
+    expect(parseViewParams(writeViewParams(new URLSearchParams(), { view: null, shown: null, probe: p })).probe).toEqual(p);
   });
 });

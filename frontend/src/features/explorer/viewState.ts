@@ -48,6 +48,14 @@ const pair = (text: string | null): [number, number] | null => {
 const fmt = (x: number) => Number(x.toPrecision(6)).toString();
 
 /**
+ * A probe point as the URL writes it (6 significant figures). The page probes exactly this point, so a link, a
+ * reload and the panel all show the numbers of the same α and B.
+ */
+export function roundProbe(point: ProbePoint): ProbePoint {
+  return { alpha: Number(fmt(point.alpha)), tesla: Number(fmt(point.tesla)) };
+}
+
+/**
  * Reads the view state from query parameters: `alpha=lo,hi` (a₀³), `field=lo,hi` (T), `show=m3` or
  * `show=survivors`, `probe=α,B` (a₀³, T). Anything malformed is ignored.
  */

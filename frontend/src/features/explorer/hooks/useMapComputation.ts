@@ -1,8 +1,9 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
-import { bindingInputsKey, type BindingMapResult, type MapSetup } from '@fieldbound/shared';
+import { bindingInputsKey, canonicalJson, type BindingMapResult, type MapSetup, type PhaseMapResult } from '@fieldbound/shared';
 import type { EnginePool } from '../../../workers/enginePool';
 import { MapComputeError } from '../../../workers/engineContract';
 import { coarseSetup } from '../../../workers/rowBands';
+import { motionInput } from './motionInput';
 
 export interface ComputeProgress {
   pass: 'coarse' | 'full';
@@ -19,29 +20,49 @@ export interface MapComputation {
   result: BindingMapResult | null;
   resultSetup: MapSetup | null;
   resultPass: 'coarse' | 'full' | null;
+  /** Moving-ion classes of `result` (the engine's phaseMap), for the motion settings `phaseKey`; null for a fixed atom. */
+  phase: PhaseMapResult | null;
+  /** `motionKey` of the settings `phase` was computed for (null: none yet, or a fixed atom). */
+  phaseKey: string | null;
   progress: ComputeProgress | null;
   error: MapComputeError | null;
   /** Wall time from the request to the first picture and to the full map, ms. */
   timings: { firstPictureMs: number | null; fullMs: number | null };
 }
 
-/** A small cache of results by `bindingInputsKey`, shared by every computation of one page. */
-export class ResultCache {
-  private readonly entries = new Map<string, BindingMapResult>();
+/** A small least-recently-used cache, shared by every computation of one page. */
+export class ResultCache<T = BindingMapResult> {
+  private readonly entries = new Map<string, T>();
   constructor(private readonly capacity = 6) {}
-  get(key: string): BindingMapResult | undefined {
+  get(key: string): T | undefined {
     const hit = this.entries.get(key);
-    if (hit) {
+    if (hit !== undefined) {
       this.entries.delete(key);
       this.entries.set(key, hit);
     }
     return hit;
   }
-  set(key: string, value: BindingMapResult): void {
+  set(key: string, value: T): void {
     this.entries.delete(key);
     this.entries.set(key, value);
     while (this.entries.size > this.capacity) this.entries.delete(this.entries.keys().next().value!);
   }
+}
+
+/** The caches of one page: binding maps by `bindingInputsKey`, their moving-ion classes by binding key and motion key. */
+export interface MapCaches {
+  binding: ResultCache<BindingMapResult>;
+  phase: ResultCache<PhaseMapResult>;
+}
+
+export function createMapCaches(): MapCaches {
+  return { binding: new ResultCache(), phase: new ResultCache() };
+}
+
+/** What the moving-ion classes depend on (ion motion, mass, observation time), or null for a fixed atom. */
+export function motionKey(setup: MapSetup): string | null {
+  const input = motionInput(setup);
+  return input ? canonicalJson(input) : null;
 }
 
 /** Shortest interval between progress renders, ms. */
@@ -49,95 +70,147 @@ const PROGRESS_RENDER_MS = 250;
 
 /** A coarse first pass pays off only when the full grid has at least four times its cells. */
 export const COARSE_SIDE = 64;
+/** The first pass is a picture, not a measurement: its model is built to 10⁻³ relative (the full map: 10⁻⁶). */
+export const COARSE_TOLERANCE = 1e-3;
 function wantsCoarse(setup: MapSetup): boolean {
   return setup.grid.nAlpha * setup.grid.nField >= 4 * COARSE_SIDE * COARSE_SIDE;
 }
 
-const IDLE: MapComputation = { status: 'idle', result: null, resultSetup: null, resultPass: null, progress: null, error: null, timings: { firstPictureMs: null, fullMs: null } };
+const IDLE: MapComputation = {
+  status: 'idle', result: null, resultSetup: null, resultPass: null, phase: null, phaseKey: null, progress: null, error: null,
+  timings: { firstPictureMs: null, fullMs: null },
+};
 
 export interface UseMapComputationOptions {
   timeoutMs: number;
+  /** Names the User Timing marks of this computation (`fieldbound:<label>:start`, `…:coarse-result`, `…:full-result`). */
+  label?: string;
+}
+
+function mark(label: string | undefined, what: string) {
+  if (label) performance.mark(`fieldbound:${label}:${what}`);
 }
 
 /**
- * Computes the binding map of `setup` in the pool: a coarse pass first (drawn at once), then the full grid.
- * Results are cached by `bindingInputsKey`, so changing display, contour levels, motion or observation time never
- * recomputes. A new setup cancels the computation in flight. `cancel` stops; `retry` starts again after an error.
+ * Computes the map of `setup` in the pool. The quick first pass (64 × 64, model to 10⁻³) and the full grid start
+ * together — on two cores one worker draws the first picture while the other prepares the full model — and the
+ * full result replaces the first one in place. Ion motion is applied to each row band by the engine's phaseMap as
+ * it is computed. Binding maps are cached by `bindingInputsKey` and classes by motion settings too, so changing
+ * display, contour levels, the shown orbital, motion or observation time never recomputes binding energies:
+ * changing motion or τ only reruns the classification (`computePhase`). A new setup cancels the work in flight.
+ * `cancel` stops; `retry` starts again after an error (with fresh workers after a crash).
  */
-export function useMapComputation(pool: EnginePool | null, setup: MapSetup | null, cache: ResultCache, options: UseMapComputationOptions) {
+export function useMapComputation(pool: EnginePool | null, setup: MapSetup | null, caches: MapCaches, options: UseMapComputationOptions) {
   const [state, setState] = useState<MapComputation>(IDLE);
   const [attempt, setAttempt] = useState(0);
   const controller = useRef<AbortController | null>(null);
   const key = setup ? bindingInputsKey(setup) : null;
+  const wantedMotion = setup ? motionKey(setup) : null;
   const setupRef = useRef(setup);
   setupRef.current = setup;
+  const { timeoutMs, label } = options;
 
+  // Binding energies (and the classes for the motion asked for when the computation starts).
   useEffect(() => {
     const current = setupRef.current;
     if (!pool || !current || !key) {
       setState(IDLE);
       return;
     }
-    const cached = cache.get(key);
+    const startMotion = motionKey(current);
+    const cached = caches.binding.get(key);
     if (cached) {
-      setState({ ...IDLE, status: 'done', result: cached, resultSetup: current, resultPass: 'full' });
+      const phase = startMotion ? (caches.phase.get(`${key}|${startMotion}`) ?? null) : null;
+      setState({ ...IDLE, status: 'done', result: cached, resultSetup: current, resultPass: 'full', phase, phaseKey: phase ? startMotion : null });
       return;
     }
     const abort = new AbortController();
     controller.current = abort;
     const started = performance.now();
+    mark(label, 'start');
     let firstPictureMs: number | null = null;
+    let fullDone = false;
     let lastProgress = -Infinity;
+    const motionSetup = startMotion ? current : null;
+    const coarse = wantsCoarse(current) ? coarseSetup(current, COARSE_SIDE) : null;
 
-    const runPass = async (pass: 'coarse' | 'full', passSetup: MapSetup): Promise<BindingMapResult> => {
-      const passKey = bindingInputsKey(passSetup);
-      const hit = cache.get(passKey);
-      if (hit) return hit;
-      const passStart = performance.now();
-      const result = await pool.computeMap(passSetup, {
-        timeoutMs: options.timeoutMs,
+    setState((s) => ({ ...s, status: 'computing', error: null, progress: null, timings: { firstPictureMs: null, fullMs: null } }));
+    const fail = (e: unknown) => {
+      if (abort.signal.aborted) return; // superseded by a newer setup, or stopped by the user (`cancel` set the state)
+      abort.abort();
+      const error = e instanceof MapComputeError ? e : new MapComputeError('engine', String(e));
+      setState((s) => ({ ...s, status: 'error', progress: null, error }));
+    };
+
+    if (coarse) {
+      pool.computeMap(coarse, { timeoutMs, signal: abort.signal, tolerance: COARSE_TOLERANCE, bands: 1, motionSetup }).then((r) => {
+        if (abort.signal.aborted || fullDone) return;
+        firstPictureMs = performance.now() - started;
+        mark(label, 'coarse-result');
+        setState((s) => ({ ...s, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null } }));
+      }, fail);
+    }
+    pool
+      .computeMap(current, {
+        timeoutMs,
         signal: abort.signal,
+        motionSetup,
         onProgress: (p) => {
           if (abort.signal.aborted) return;
           // At most a few renders a second: progress must never cost the page its smoothness.
           const now = performance.now();
           if (now - lastProgress < PROGRESS_RENDER_MS && p.done < p.total) return;
           lastProgress = now;
-          const elapsedMs = now - passStart;
-          const remainingMs = p.done >= Math.max(1, p.total * 0.02) ? (elapsedMs / p.done) * (p.total - p.done) : null;
+          const elapsedMs = now - started;
+          const remainingMs = p.done >= Math.max(1, p.total * 0.05) ? (elapsedMs / p.done) * (p.total - p.done) : null;
+          const pass = coarse && firstPictureMs === null ? 'coarse' : 'full';
           setState((s) => ({ ...s, progress: { pass, done: p.done, total: p.total, elapsedMs, remainingMs } }));
         },
-      });
-      cache.set(passKey, result);
-      return result;
-    };
-
-    setState((s) => ({ ...s, status: 'computing', error: null, progress: null, timings: { firstPictureMs: null, fullMs: null } }));
-    (async () => {
-      try {
-        if (wantsCoarse(current)) {
-          const coarse = coarseSetup(current, COARSE_SIDE);
-          const r = await runPass('coarse', coarse);
-          if (abort.signal.aborted) return;
-          firstPictureMs = performance.now() - started;
-          setState((s) => ({ ...s, result: r, resultSetup: coarse, resultPass: 'coarse', timings: { firstPictureMs, fullMs: null } }));
-        }
-        const full = await runPass('full', current);
+      })
+      .then((r) => {
         if (abort.signal.aborted) return;
+        fullDone = true;
+        caches.binding.set(key, r.binding);
+        if (r.phase && startMotion) caches.phase.set(`${key}|${startMotion}`, r.phase);
         const fullMs = performance.now() - started;
-        setState({ status: 'done', result: full, resultSetup: current, resultPass: 'full', progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs } });
-      } catch (e) {
-        if (abort.signal.aborted && e instanceof MapComputeError && e.kind === 'cancelled') {
-          // Superseded by a newer setup, or stopped by the user (then `cancel` already set the state).
-          return;
-        }
-        const error = e instanceof MapComputeError ? e : new MapComputeError('engine', String(e));
-        setState((s) => ({ ...s, status: 'error', progress: null, error }));
-      }
-    })();
+        mark(label, 'full-result');
+        setState({
+          status: 'done', result: r.binding, resultSetup: current, resultPass: 'full', phase: r.phase, phaseKey: r.phase ? startMotion : null,
+          progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs },
+        });
+      }, fail);
     return () => abort.abort();
     // `attempt` re-runs after Retry; the setup itself is read through the ref and keyed by `key`.
-  }, [pool, key, cache, attempt, options.timeoutMs]);
+  }, [pool, key, caches, attempt, timeoutMs, label]);
+
+  // Moving-ion classes for motion settings other than those the result was classified for: the engine's
+  // phaseMap on the binding energies already computed (split by rows over the pool), nothing else.
+  const { result, resultSetup, phaseKey, resultPass } = state;
+  useEffect(() => {
+    if (!pool || !result || !resultSetup || !wantedMotion || phaseKey === wantedMotion) return;
+    const current = setupRef.current;
+    if (!current) return;
+    const cacheKey = resultPass === 'full' && key ? `${key}|${wantedMotion}` : null;
+    const hit = cacheKey ? caches.phase.get(cacheKey) : undefined;
+    if (hit) {
+      setState((s) => (s.result === result ? { ...s, phase: hit, phaseKey: wantedMotion } : s));
+      return;
+    }
+    const abort = new AbortController();
+    pool.computePhase(current, result, { timeoutMs, signal: abort.signal }).then(
+      (phase) => {
+        if (abort.signal.aborted) return;
+        if (cacheKey) caches.phase.set(cacheKey, phase);
+        setState((s) => (s.result === result ? { ...s, phase, phaseKey: wantedMotion } : s));
+      },
+      (e: unknown) => {
+        if (abort.signal.aborted) return;
+        const error = e instanceof MapComputeError ? e : new MapComputeError('engine', String(e));
+        setState((s) => (s.result === result ? { ...s, status: 'error', error } : s));
+      },
+    );
+    return () => abort.abort();
+  }, [pool, result, resultSetup, resultPass, phaseKey, wantedMotion, key, caches, timeoutMs]);
 
   const cancel = useCallback(() => {
     controller.current?.abort();
@@ -148,5 +221,7 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
     if (state.error?.kind === 'crash') pool?.restart();
     setAttempt((a) => a + 1);
   }, [pool, state.error]);
-  return { state, cancel, retry };
+  // Classes count only when they belong to the motion settings asked for now (a fixed atom: none).
+  const phase = wantedMotion && state.phaseKey === wantedMotion ? state.phase : null;
+  return { state, phase, motionWanted: wantedMotion !== null, cancel, retry };
 }
