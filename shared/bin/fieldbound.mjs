@@ -10,4 +10,4 @@ try {
   }
   throw e;
 }
-process.exitCode = cli.main(process.argv.slice(2));
+process.exitCode = await cli.main(process.argv.slice(2));

@@ -18,10 +18,10 @@ function run(args: string[]): { status: number | null; stdout: string; stderr: s
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
-function capture(argv: string[]): { code: number; out: string; err: string } {
+async function capture(argv: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '';
   let err = '';
-  const code = main(argv, { out: (t) => (out += t + '\n'), err: (t) => (err += t + '\n') });
+  const code = await main(argv, { out: (t) => (out += t + '\n'), err: (t) => (err += t + '\n') });
   return { code, out, err };
 }
 
@@ -61,7 +61,7 @@ describe('fieldbound levels (spawned process)', () => {
     expect(doc.states.map((s) => s.bindingHartree)).toEqual(direct.map((s) => s.bindingHartree));
   });
 
-  it('bad arguments: one line naming the argument on stderr, exit code 2', () => {
+  it('bad arguments: one line naming the argument on stderr, exit code 2', async () => {
     const cases: [string[], string][] = [
       [['levels', '--alpha', '-1', '--field', '1', '--field-unit', 'au', '--cutoff', '2', '--m-max', '1'], '--alpha'],
       [['levels', '--alpha', '10', '--field', 'abc', '--field-unit', 'au', '--cutoff', '2', '--m-max', '1'], '--field'],
@@ -73,7 +73,7 @@ describe('fieldbound levels (spawned process)', () => {
       [['level'], 'command'],
     ];
     for (const [args, name] of cases) {
-      const c = capture(args);
+      const c = await capture(args);
       expect(c.code, args.join(' ')).toBe(2);
       expect(c.out).toBe('');
       expect(c.err.trimEnd().split('\n').length, c.err).toBe(1);
@@ -86,8 +86,8 @@ describe('fieldbound levels (spawned process)', () => {
     expect(r.stderr.trim()).toBe("fieldbound: --alpha: must be a positive finite number, got 'x'");
   });
 
-  it('the table lists every state with binding energies in hartree, µeV and kelvin', () => {
-    const c = capture(['levels', '--alpha', '10', '--field', '0.1', '--field-unit', 'au', '--cutoff', '2', '--m-max', '2']);
+  it('the table lists every state with binding energies in hartree, µeV and kelvin', async () => {
+    const c = await capture(['levels', '--alpha', '10', '--field', '0.1', '--field-unit', 'au', '--cutoff', '2', '--m-max', '2']);
     expect(c.code).toBe(0);
     expect(c.out).toContain('binding (hartree)');
     expect(c.out).toContain('binding (ueV)');
@@ -97,10 +97,12 @@ describe('fieldbound levels (spawned process)', () => {
     expect(c.out).toMatch(/cutoff-dominated/);
   });
 
-  it('--help prints the usage and exits 0', () => {
-    const c = capture(['--help']);
+  it('--help prints the usage and exits 0', async () => {
+    const c = await capture(['--help']);
     expect(c.code).toBe(0);
     expect(c.out).toContain('fieldbound levels --alpha <a0^3> --field <value> --field-unit <tesla|au>');
-    expect(capture(['levels', '--help']).code).toBe(0);
+    expect((await capture(['levels', '--help'])).code).toBe(0);
+    expect((await capture(['map', '--help'])).code).toBe(0);
+    expect((await capture(['check', '--help'])).code).toBe(0);
   });
 });

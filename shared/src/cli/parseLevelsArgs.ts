@@ -1,16 +1,10 @@
 /// <reference types="node" />
 import { parseArgs } from 'node:util';
 
-/** Thrown for a bad command line; `argument` names the offending option (printed, exit code 2). */
-export class CliUsageError extends Error {
-  override name = 'CliUsageError';
-  constructor(
-    public readonly argument: string,
-    message: string,
-  ) {
-    super(`${argument}: ${message}`);
-  }
-}
+import { CliUsageError } from './cliUsageError.js';
+import { ionMotionFromArgs, type CliMotion } from './ionMotionArgs.js';
+
+export { CliUsageError };
 
 /** Parsed arguments of `fieldbound levels`. */
 export interface LevelsArgs {
@@ -20,6 +14,8 @@ export interface LevelsArgs {
   cutoff: number;
   mMax: number;
   json: boolean;
+  /** Ion motion (null: the atom is held fixed). */
+  motion: CliMotion | null;
 }
 
 const OPTIONS = {
@@ -28,6 +24,12 @@ const OPTIONS = {
   'field-unit': { type: 'string' },
   cutoff: { type: 'string' },
   'm-max': { type: 'string' },
+  'mass-number': { type: 'string' },
+  'kinetic-energy': { type: 'string' },
+  'energy-unit': { type: 'string' },
+  'ion-level': { type: 'string' },
+  temperature: { type: 'string' },
+  tau: { type: 'string' },
   json: { type: 'boolean', default: false },
   help: { type: 'boolean', short: 'h', default: false },
 } as const;
@@ -43,11 +45,13 @@ function positiveNumber(name: string, raw: string | undefined): number {
 
 /**
  * Parses the options of `fieldbound levels` (node:util parseArgs, strict: unknown options and
- * stray positionals are errors). Returns null when --help was asked for.
+ * stray positionals are errors). Returns null when --help was asked for. The ion-motion options
+ * (--mass-number, --kinetic-energy/--energy-unit, --ion-level, --temperature, --tau) are checked
+ * by the server's setup rules (see ionMotionFromArgs).
  *
  * @example
  * parseLevelsArgs(['--alpha', '10', '--field', '1', '--field-unit', 'tesla', '--cutoff', '2', '--m-max', '3'])
- * // { alpha: 10, field: 1, fieldUnit: 'tesla', cutoff: 2, mMax: 3, json: false }
+ * // { alpha: 10, field: 1, fieldUnit: 'tesla', cutoff: 2, mMax: 3, json: false, motion: null }
  */
 export function parseLevelsArgs(argv: string[]): LevelsArgs | null {
   // `--alpha -1` would read "-1" as an option: glue a value that looks like a number to its option,
@@ -85,5 +89,13 @@ export function parseLevelsArgs(argv: string[]): LevelsArgs | null {
   if (rawM.trim() === '' || !Number.isInteger(mMax) || mMax < 0 || mMax > 64) {
     throw new CliUsageError('--m-max', `must be a whole number in 0…64, got '${rawM}'`);
   }
-  return { alpha, field, fieldUnit, cutoff, mMax, json: v.json };
+  const motion = ionMotionFromArgs({
+    massNumber: v['mass-number'],
+    kineticEnergy: v['kinetic-energy'],
+    energyUnit: v['energy-unit'],
+    ionLevel: v['ion-level'],
+    temperature: v.temperature,
+    tau: v.tau,
+  });
+  return { alpha, field, fieldUnit, cutoff, mMax, json: v.json, motion };
 }

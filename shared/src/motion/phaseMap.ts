@@ -9,9 +9,11 @@ import { validateMotionSettings, type MotionSettings } from './motionSettings.js
  * The validated motion settings a setup asks for, or null for a fixed atom (`motion.kind = 'none'`).
  * Energies in the setup are in kelvin (k_B·T); the engine works in hartree.
  *
+ * Only `motion`, `ion` and `observationTimeSeconds` are read (the command line passes just those).
+ *
  * Bad input: an `EngineInputError` naming the parameter (the setup schema normally catches it first).
  */
-export function motionSettingsFromSetup(setup: MapSetup): MotionSettings | null {
+export function motionSettingsFromSetup(setup: Pick<MapSetup, 'motion' | 'ion' | 'observationTimeSeconds'>): MotionSettings | null {
   const base = { massNumber: setup.ion.massNumber, observationTimeSeconds: setup.observationTimeSeconds };
   switch (setup.motion.kind) {
     case 'none':
