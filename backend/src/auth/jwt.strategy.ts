@@ -1,3 +1,4 @@
+import { createSecretKey } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { PassportStrategy } from '@nestjs/passport';
@@ -31,7 +32,10 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   ) {
     super({
       jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
-      secretOrKey: config.get('jwtSecret', { infer: true }),
+      // A KeyObject made once: given a string, jsonwebtoken first tries (and fails) to parse it as a public
+      // key on every request — an exception path that cost ~2 ms of CPU per call under load (docs/loadtest.md).
+      // (jsonwebtoken.verify accepts a KeyObject; passport-jwt's types only list string | Buffer.)
+      secretOrKey: createSecretKey(config.get('jwtSecret', { infer: true }), 'utf8') as unknown as Buffer,
       algorithms: ['HS256'],
       issuer: JWT_ISSUER,
       audience: JWT_AUDIENCE,
