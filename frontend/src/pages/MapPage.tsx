@@ -1,10 +1,9 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import { App, Button, Result, Space, Spin, Tooltip, Typography } from 'antd';
-import { ArrowLeftOutlined, DisconnectOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
+import { App, Button, Space, Spin, Tooltip, Typography } from 'antd';
+import { ArrowLeftOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { canonicalJson, setupFingerprint, type MapDetail, type MapSetup, type SpeciesEntry } from '@fieldbound/shared';
-import { ApiError } from '../api/client';
 import { conflictOf, storeMap, useMap, usePutSummary, usePutThumbnail, useRestoreVersion, useSaveAsCopy, useUpdateMap, type UpdateMapVars } from '../api/maps';
 import { useTeamSpecies } from '../api/species';
 import { useCurrentTeam } from '../state/currentTeam';
@@ -17,6 +16,7 @@ import { UnsavedChangesGuard } from '../features/maps/UnsavedChangesGuard';
 import { VersionsDrawer } from '../features/maps/VersionsDrawer';
 import { summaryRequest, thumbnailPng } from '../features/maps/resultSummary';
 import { palette } from '../theme/palette';
+import { ProblemState } from '../components/ProblemState';
 
 /** Height of the map page's own bar under the app's top bar. */
 const BAR_HEIGHT = 44;
@@ -61,20 +61,15 @@ export function MapPage() {
     );
   }
   if (map.isError || !map.data) {
-    const notFound = map.error instanceof ApiError && (map.error.status === 404 || map.error.status === 403);
     return (
-      <Result
-        status={notFound ? undefined : 'error'}
-        icon={notFound ? <DisconnectOutlined style={{ color: palette.ink }} /> : undefined}
-        title={notFound ? 'This map is not available' : 'The map could not be loaded'}
-        subTitle={notFound ? 'It may have been deleted, or it belongs to a team you are not a member of.' : map.error?.message}
+      <ProblemState
+        error={map.error}
+        what="this map"
+        onRetry={() => map.refetch()}
         extra={
-          <Space>
-            {!notFound && <Button onClick={() => map.refetch()}>Try again</Button>}
-            <Link to="/maps">
-              <Button type="primary">Back to the maps</Button>
-            </Link>
-          </Space>
+          <Link to="/maps">
+            <Button>Back to the maps</Button>
+          </Link>
         }
       />
     );

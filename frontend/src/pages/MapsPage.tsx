@@ -8,6 +8,7 @@ import { useCurrentTeam } from '../state/currentTeam';
 import { ImportSetupDialog } from '../features/export';
 import { CreateMapModal } from '../features/maps/CreateMapModal';
 import { DuplicateMapModal } from '../features/maps/DuplicateMapModal';
+import { ProblemLine } from '../components/ProblemState';
 import { MapThumbnail, SummaryCounts, formatDateTime, personName } from '../features/maps/MapBits';
 
 /** Seconds a deleted map stays in the list's "Undo" notice before the delete is sent. */
@@ -263,7 +264,7 @@ export function MapsPage() {
         }}
         locale={{
           emptyText: list.isError ? (
-            <Empty image={Empty.PRESENTED_IMAGE_SIMPLE} description={<>The maps could not be loaded: {list.error.message} <Button type="link" onClick={() => list.refetch()}>Try again</Button></>} />
+            <Empty image={Empty.PRESENTED_IMAGE_SIMPLE} description={<ProblemLine error={list.error} what="the maps" onRetry={() => list.refetch()} />} />
           ) : noMapsAtAll ? (
             <Empty
               image={Empty.PRESENTED_IMAGE_SIMPLE}

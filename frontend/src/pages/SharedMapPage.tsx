@@ -5,6 +5,7 @@ import { ApiError } from '../api/client';
 import { useSharedMap } from '../api/viewingLinks';
 import { ExplorerPage } from '../features/explorer/ExplorerPage';
 import { palette } from '../theme/palette';
+import { ProblemState } from '../components/ProblemState';
 
 const BAR_HEIGHT = 44;
 
@@ -32,18 +33,7 @@ function LinkRefused({ error, onRetry }: { error: unknown; onRetry: () => void }
   if (status === 429) {
     return <Result status="warning" title="Too many requests" subTitle="This link was opened very often in a short time. Wait a minute and reload the page." />;
   }
-  return (
-    <Result
-      status="error"
-      title="The map could not be loaded"
-      subTitle={error instanceof Error ? error.message : 'Try again in a moment.'}
-      extra={
-        <a onClick={onRetry} role="button">
-          Try again
-        </a>
-      }
-    />
-  );
+  return <ProblemState error={error} what="the shared map" onRetry={onRetry} />;
 }
 
 /**

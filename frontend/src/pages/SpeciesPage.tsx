@@ -5,6 +5,7 @@ import { SPECIES_CSV_COLUMNS, SPECIES_UPLOAD_LIMITS, type CsvIssue, type Species
 import { csvIssuesOf, useDeleteSpeciesList, useSpeciesLists, useTeamSpecies, useUploadSpeciesList } from '../api/species';
 import { useCurrentTeam } from '../state/currentTeam';
 import { formatDateTime } from '../features/maps/MapBits';
+import { ProblemLine } from '../components/ProblemState';
 
 const UNIT_LABEL: Record<string, string> = { 'a0^3': 'a₀³', 'A^3': 'Å³', '1e-24cm^3': '10⁻²⁴ cm³' };
 
@@ -251,7 +252,7 @@ export function SpeciesPage() {
         )}
       </Space>
       <Input.Search allowClear aria-label="Search species" placeholder="Search names, symbols and sources" value={search} onChange={(e) => setSearch(e.target.value)} style={{ maxWidth: 360, marginBottom: 12 }} />
-      {species.isError && <Alert type="error" showIcon message={`The species could not be loaded: ${species.error.message}`} style={{ marginBottom: 12 }} />}
+      {species.isError && <Alert type="error" showIcon message={<ProblemLine error={species.error} what="the species" onRetry={() => species.refetch()} />} style={{ marginBottom: 12 }} />}
       <Tabs
         items={[
           { key: 'catalogue', label: `Catalogue (${catalogue.length})`, children: <SpeciesTable items={catalogue} loading={species.isLoading} showList={false} /> },

@@ -212,6 +212,15 @@ export function ExplorerPage({
 
   const onProbe = useCallback((p: ProbePoint) => setProbe(roundProbe(p)), []);
   const species = useMemo(() => speciesCatalogue.filter((s) => applied.species.includes(s.name)), [speciesCatalogue, applied.species]);
+  // One choice per atom (the catalogue lists an atom under its name and its symbol; the shorter one is stored).
+  const speciesOptions = useMemo(() => {
+    const byAtom = new Map<string, SpeciesMarker>();
+    for (const s of speciesCatalogue) {
+      const seen = byAtom.get(s.details);
+      if (!seen || s.name.length < seen.name.length) byAtom.set(s.details, s);
+    }
+    return [...byAtom.values()].sort((a, b) => a.alphaAu - b.alphaAu).map((s) => ({ value: s.name, label: `${s.details.split('\n')[0]} · α = ${s.alphaAu} a₀³` }));
+  }, [speciesCatalogue]);
   const maxCount = layers.length ? Math.max(...layers.map((l) => l.geometry.maxCount)) : 0;
   const activeComp = zoomed && windowComp.state.status !== 'idle' && windowComp.state.status !== 'done' ? windowComp : base;
   const geometryError = baseGeometry.error ?? windowGeometry.error;
@@ -229,7 +238,7 @@ export function ExplorerPage({
               <Button type="text" size="small" aria-label="Hide the setup" icon={<MenuFoldOutlined />} onClick={() => setPanelOpen(false)} />
             </Tooltip>
           </Space>
-          <SetupPanel draft={draft} issues={check.issues} onChange={onDraftChange} onCompute={onCompute} needsCompute={check.needsCompute} onSave={onSaveSetup && check.valid ? () => onSaveSetup(check.valid!) : undefined} saveLabel={saveLabel} />
+          <SetupPanel draft={draft} issues={check.issues} onChange={onDraftChange} onCompute={onCompute} needsCompute={check.needsCompute} onSave={onSaveSetup && check.valid ? () => onSaveSetup(check.valid!) : undefined} saveLabel={saveLabel} speciesOptions={speciesOptions.length ? speciesOptions : undefined} />
         </aside>
       )}
       <main style={{ flex: 1, minWidth: 0, display: 'flex', flexDirection: 'column' }}>

@@ -8,6 +8,7 @@ import {
 } from '../map-render/displayUnits';
 import { formatScientific, parseScientific } from '../map-render/formatNumber';
 import { issuesAt, setIn, type SetupDraft } from './setupDraft';
+import { MagnetSafetyNote } from '../../components/MagnetSafetyNote';
 
 /** Shown values: 10 significant figures, so a unit round trip never shows 10.000000000000002. */
 const shownValue = (x: number | undefined) => (x === undefined || !Number.isFinite(x) ? null : Number(x.toPrecision(10)));
@@ -55,6 +56,8 @@ export interface SetupPanelProps {
   /** Optional seam for saving (the saved-maps feature plugs in here). */
   onSave?: () => void;
   saveLabel?: string;
+  /** Species the overlay can mark (value: the name stored in the setup). Without it the species field is hidden. */
+  speciesOptions?: readonly { value: string; label: string }[];
 }
 
 const MOTION_OPTIONS: { value: IonMotion['kind']; label: string }[] = [
@@ -99,7 +102,7 @@ function Section({ title }: { title: string }) {
 }
 
 /** The setup of a map: ranges and scales, grid, orbitals, cutoff, ion motion, contours and display units. */
-export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, onCompute, needsCompute, onSave, saveLabel }: SetupPanelProps) {
+export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, onCompute, needsCompute, onSave, saveLabel, speciesOptions }: SetupPanelProps) {
   const set = (path: (string | number)[]) => (value: unknown) => onChange(setIn(draft, path, value));
   const { alphaUnit, fieldUnit, energyUnit } = draft.display;
   const aLabel = ALPHA_UNIT_LABEL[alphaUnit];
@@ -247,6 +250,29 @@ export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, on
       >
         Add field band ({bLabel})
       </Button>
+      {(draft.fieldBands.length > 0 || draft.fieldAxis.min <= 100) && (
+        <div style={{ marginTop: 8 }}>
+          <MagnetSafetyNote compact />
+        </div>
+      )}
+
+      {speciesOptions && (
+        <>
+          <Section title="Species on the map" />
+          <Form.Item validateStatus={issuesAt(issues, 'species').length ? 'error' : undefined} help={issuesAt(issues, 'species').join('; ') || undefined} style={{ marginBottom: 10 }}>
+            <Select
+              mode="multiple"
+              aria-label="Species on the map"
+              placeholder="Mark atoms at their polarizability…"
+              value={draft.species}
+              onChange={set(['species'])}
+              options={speciesOptions.map((o) => ({ value: o.value, label: o.label }))}
+              optionFilterProp="label"
+              maxTagCount={12}
+            />
+          </Form.Item>
+        </>
+      )}
 
       <Space style={{ marginTop: 16, width: '100%' }} orientation="vertical">
         <Button type="primary" block disabled={!needsCompute} onClick={onCompute}>

@@ -4,6 +4,7 @@ import { UploadOutlined } from '@ant-design/icons';
 import { MAP_LIMITS, SETUP_PRESETS, applyPreset, defaultSetup, type MapDetail, type MapSetup } from '@fieldbound/shared';
 import { useCreateMap } from '../../api/maps';
 import { applyServerErrors } from '../../components/forms';
+import { MagnetSafetyNote } from '../../components/MagnetSafetyNote';
 import { ImportSetupDialog } from '../export';
 import { formatScientific } from '../map-render/formatNumber';
 
@@ -91,7 +92,13 @@ export function CreateMapModal({ teamId, open, onClose, onCreated, importedSetup
           <Form.Item name="preset" label="Regime" extra={SETUP_PRESETS.find((p) => p.id === presetId)?.description}>
             <Select aria-label="Regime" options={SETUP_PRESETS.map((p) => ({ value: p.id, label: p.title }))} />
           </Form.Item>
-        ) : (
+        ) : null}
+        {source === 'preset' && (presetId === 'laboratory' || presetId === 'pulsed') ? (
+          <div style={{ marginBottom: 16 }}>
+            <MagnetSafetyNote compact />
+          </div>
+        ) : null}
+        {source === 'preset' ? null : (
           <Form.Item label="Setup file">
             <Space direction="vertical" style={{ width: '100%' }}>
               <Button icon={<UploadOutlined />} onClick={() => setImportOpen(true)}>
