@@ -9,18 +9,9 @@ import { fileURLToPath } from 'node:url';
 
 export const ORACLE_SOURCE = 'mpmath 1.3.0 (F. Johansson et al.), 50-digit evaluation, fixture special-oracle.json';
 
-export interface SpecialOracle {
-  versions: { mpmath: string; python: string };
-  gamma: [number, string][];
-  lnGamma: [number, string][];
-  erfc: [number, string][];
-  erfcx: [number, string][];
-  expnScaled: [number, number, string][];
-  expn: [number, number, string][];
-  tricomiU2: { 'rows [m, x, value]': [number, number, string][] };
-  tricomiU32: { 'rows [m, s, value]': [number, number, string][] };
-  scaledPotentialDirect: { 'rows [m, zeta, rhoC, value]': [number, number, number, string][] };
-}
+// The oracle's shape is defined once, next to the validation cases that read it.
+import type { SpecialOracle } from '../src/validation/validationCases.js';
+export type { SpecialOracle };
 
 let cache: SpecialOracle | undefined;
 

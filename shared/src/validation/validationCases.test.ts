@@ -3,14 +3,8 @@
  * the runner reports a failing case as failed (so a broken engine cannot pass the check).
  */
 import { describe, expect, it } from 'vitest';
-import { loadSpecialOracle } from '../../test/oracle.js';
-import { readFileSync } from 'node:fs';
-import { runValidationCase, VALIDATION_CASES, type Exact1dOracle, type ValidationData } from './validationCases.js';
-
-const data: ValidationData = {
-  special: loadSpecialOracle(),
-  exact1d: JSON.parse(readFileSync(new URL('../../test/fixtures/exact-1d-oracle.json', import.meta.url), 'utf8')) as Exact1dOracle,
-};
+import { VALIDATION_DATA as data } from '../../test/validationData.js';
+import { runValidationCase, VALIDATION_CASES } from './validationCases.js';
 
 describe('validation cases', () => {
   for (const c of VALIDATION_CASES) {
