@@ -10,8 +10,9 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export interface TestAppOverrides extends Partial<Omit<AppConfig, 'auth'>> {
+export interface TestAppOverrides extends Partial<Omit<AppConfig, 'auth' | 'mail'>> {
   auth?: Partial<AppConfig['auth']>;
+  mail?: Partial<AppConfig['mail']>;
 }
 
 /** A clock the test moves by hand. Starts at the real time. */
@@ -37,7 +38,8 @@ export async function startTestApp(overrides: TestAppOverrides = {}, options: { 
     port: 0,
     ...overrides,
     auth: { ...base.auth, rateLimit: { limit: 10_000, windowSeconds: 60 }, ...overrides.auth },
-    mail: { ...base.mail, smtpUrl: null, fakePort: 0, ...overrides.mail },
+    // No background mail retries: tests that need them call InvitationMailRetryService.deliverDue().
+    mail: { ...base.mail, smtpUrl: null, fakePort: 0, retryIntervalSeconds: 0, ...overrides.mail },
   };
   const app = await createApp({ logs: 'silent', config, clock: options.clock });
   await app.listen(0, '127.0.0.1');

@@ -33,6 +33,8 @@ export interface AppConfig {
     from: string;
     /** Port of the local fake SMTP server on 127.0.0.1 (0 picks a free one). */
     fakePort: number;
+    /** How often undelivered invitation e-mails are looked for and re-sent (0: never; tests call the service). */
+    retryIntervalSeconds: number;
   };
   /** Live map updates (server-sent events); see docs/operations.md. */
   live: {
@@ -134,6 +136,7 @@ export function loadConfig(): AppConfig {
       smtpUrl: process.env.FIELDBOUND_SMTP_URL || null,
       from: process.env.FIELDBOUND_MAIL_FROM ?? 'Fieldbound <no-reply@fieldbound.local>',
       fakePort: intFromEnv('FIELDBOUND_FAKE_SMTP_PORT', 0),
+      retryIntervalSeconds: positiveIntFromEnv('FIELDBOUND_MAIL_RETRY_INTERVAL', 15),
     },
     live: {
       heartbeatMs: LIVE_HEARTBEAT_MS,

@@ -4,6 +4,8 @@ import { TEAM_ROLES, type TeamRole } from '../teams/team-role';
 import { User } from '../users/user.entity';
 
 export type InvitationStatus = 'pending' | 'accepted' | 'revoked' | 'expired';
+/** `pending`: the e-mail could not be delivered yet and is re-sent automatically (InvitationMailRetryService). */
+export type InvitationMailStatus = 'sent' | 'pending';
 
 /**
  * An e-mailed invitation to join a team with a role. The link carries `<id>.<secret>`; only the
@@ -52,6 +54,19 @@ export class Invitation {
 
   @Property({ type: 'datetime', nullable: true })
   revokedAt: Date | null = null;
+
+  @Property({ type: 'string', length: 16 })
+  mailStatus: InvitationMailStatus & Opt = 'sent';
+
+  /** Failed deliveries since the last successful one. */
+  @Property({ type: 'integer' })
+  mailAttempts: number & Opt = 0;
+
+  @Property({ type: 'datetime', nullable: true })
+  mailNextAttemptAt: Date | null = null;
+
+  @Property({ type: 'string', length: 500, nullable: true })
+  mailLastError: string | null = null;
 
   constructor(init: { id: string; team: Team; email: string; role: TeamRole; invitedBy: User; tokenHash: string; now: Date; expiresAt: Date }) {
     this.id = init.id;

@@ -1,5 +1,5 @@
 import type { SentInvitation } from '@fieldbound/shared';
-import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import { ConflictException, ForbiddenException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { EntityManager } from '@mikro-orm/postgresql';
 import type { AppConfig } from '../config/configuration';
@@ -28,6 +28,8 @@ export type { SentInvitation };
  */
 @Injectable()
 export class InvitationsService {
+  private readonly logger = new Logger('invitations');
+
   constructor(
     private readonly em: EntityManager,
     private readonly clock: Clock,
@@ -71,11 +73,12 @@ export class InvitationsService {
       now,
       expiresAt: this.expiryFrom(now),
     });
+    markInFlight(invitation, now);
     this.em.persist(invitation);
     this.audit.record({ action: 'invitation.created', teamId: team.id, actor, targetEmail: email, details: { role, invitationId: invitation.id } });
     await this.em.flush();
-    const emailSent = await this.sendMail(invitation, secret.token);
-    return { invitation: toView(invitation, now), emailSent };
+    const emailSent = await this.deliver(this.em, invitation, secret.token);
+    return { invitation: toView(invitation, this.clock.now()), emailSent };
   }
 
   /** A new link (the previous one stops working) and a new expiry, sent again. */
@@ -91,10 +94,11 @@ export class InvitationsService {
     invitation.lastSentAt = now;
     invitation.sendCount += 1;
     invitation.expiresAt = this.expiryFrom(now);
+    markInFlight(invitation, now);
     this.audit.record({ action: 'invitation.resent', teamId, actor, targetEmail: invitation.email, details: { invitationId: invitation.id, sendCount: invitation.sendCount } });
     await this.em.flush();
-    const emailSent = await this.sendMail(invitation, secret.token);
-    return { invitation: toView(invitation, now), emailSent };
+    const emailSent = await this.deliver(this.em, invitation, secret.token);
+    return { invitation: toView(invitation, this.clock.now()), emailSent };
   }
 
   async revoke(teamId: string, actor: AuthUser, invitationId: string): Promise<void> {
@@ -193,19 +197,56 @@ export class InvitationsService {
     return new Date(now.getTime() + this.config.get('auth', { infer: true }).invitationTtlSeconds * 1000);
   }
 
-  private sendMail(invitation: Invitation, token: string): Promise<boolean> {
+  /**
+   * Sends the invitation's e-mail and stores the outcome: `sent`, or `pending` with the next attempt after a
+   * backoff (InvitationMailRetryService re-sends it). Never throws for a mail failure; answers whether it went out.
+   */
+  async deliver(em: EntityManager, invitation: Invitation, token: string): Promise<boolean> {
     const inviter = invitation.invitedBy;
-    return this.mail.sendInBackground(
-      invitationMail({
-        to: invitation.email,
-        teamName: invitation.team.name,
-        inviterName: inviter?.displayName || 'A colleague',
-        role: invitation.role,
-        link: `${this.config.get('publicUrl', { infer: true })}/invitations/${token}`,
-        expiresAt: invitation.expiresAt,
-      }),
-    );
+    const message = invitationMail({
+      to: invitation.email,
+      teamName: invitation.team.name,
+      inviterName: inviter?.displayName || 'A colleague',
+      role: invitation.role,
+      link: `${this.config.get('publicUrl', { infer: true })}/invitations/${token}`,
+      expiresAt: invitation.expiresAt,
+    });
+    let sent = true;
+    try {
+      await this.mail.send(message);
+    } catch (error) {
+      sent = false;
+      const text = (error as Error).message || String(error);
+      this.logger.warn({ event: 'invitation.mail_pending', invitationId: invitation.id, attempt: invitation.mailAttempts + 1, error: text });
+      const now = this.clock.now();
+      invitation.mailStatus = 'pending';
+      invitation.mailAttempts += 1;
+      invitation.mailNextAttemptAt = new Date(now.getTime() + mailRetryDelaySeconds(invitation.mailAttempts) * 1000);
+      invitation.mailLastError = text.slice(0, 500);
+    }
+    if (sent) {
+      invitation.mailStatus = 'sent';
+      invitation.mailAttempts = 0;
+      invitation.mailNextAttemptAt = null;
+      invitation.mailLastError = null;
+      invitation.lastSentAt = this.clock.now();
+    }
+    await em.flush();
+    return sent;
   }
+}
+
+/** How long the server waits before trying again after `attempts` failed deliveries: 30 s, 1 min, 2 min, … at most 1 h. */
+export function mailRetryDelaySeconds(attempts: number): number {
+  return Math.min(30 * 2 ** Math.max(0, attempts - 1), 3600);
+}
+
+/** While a send is under way the invitation is pending with a far next attempt, so a server that dies mid-send leaves it to be retried. */
+export const IN_FLIGHT_SECONDS = 600;
+
+export function markInFlight(invitation: Invitation, now: Date): void {
+  invitation.mailStatus = 'pending';
+  invitation.mailNextAttemptAt = new Date(now.getTime() + IN_FLIGHT_SECONDS * 1000);
 }
 
 function conflict(code: string, field: string, message: string): ConflictException {
@@ -224,5 +265,8 @@ function toView(invitation: Invitation, now: Date): InvitationView {
     lastSentAt: invitation.lastSentAt.toISOString(),
     sendCount: invitation.sendCount,
     expiresAt: invitation.expiresAt.toISOString(),
+    mailStatus: invitation.mailStatus,
+    mailAttempts: invitation.mailAttempts,
+    nextMailAttemptAt: invitation.mailStatus === 'pending' && invitation.mailNextAttemptAt ? invitation.mailNextAttemptAt.toISOString() : null,
   };
 }

@@ -58,6 +58,12 @@ export interface InvitationView {
   lastSentAt: string;
   sendCount: number;
   expiresAt: string;
+  /** `pending`: the e-mail could not be delivered yet; the server re-sends it by itself (backoff 30 s … 1 h). */
+  mailStatus: 'sent' | 'pending';
+  /** Failed deliveries since the last one that went out. */
+  mailAttempts: number;
+  /** When the server tries again (pending only). */
+  nextMailAttemptAt: string | null;
 }
 
 /** `POST /api/teams/:teamId/invitations` and re-send: the invitation, and whether its e-mail went out (else it is pending and re-sent). */

@@ -5,6 +5,7 @@ import { Migration20261202020100_maps } from './Migration20261202020100_maps';
 import { Migration20261202020200_pins } from './Migration20261202020200_pins';
 import { Migration20261202020300_viewing_links } from './Migration20261202020300_viewing_links';
 import { Migration20261202030000_live_events } from './Migration20261202030000_live_events';
+import { Migration20261202040000_invitation_mail } from './Migration20261202040000_invitation_mail';
 
 // Migrations in the order they apply. Listing them explicitly lets the compiled server,
 // the CLI and Vitest run exactly the same committed migrations.
@@ -15,4 +16,5 @@ export const ALL_MIGRATIONS: MigrationObject[] = [
   { name: 'Migration20261202020200_pins', class: Migration20261202020200_pins },
   { name: 'Migration20261202020300_viewing_links', class: Migration20261202020300_viewing_links },
   { name: 'Migration20261202030000_live_events', class: Migration20261202030000_live_events },
+  { name: 'Migration20261202040000_invitation_mail', class: Migration20261202040000_invitation_mail },
 ];

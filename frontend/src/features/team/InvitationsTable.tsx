@@ -1,4 +1,4 @@
-import { App, Button, Popconfirm, Space, Table, Tag } from 'antd';
+import { App, Button, Popconfirm, Space, Table, Tag, Tooltip } from 'antd';
 import { useResendInvitation, useRevokeInvitation } from '../../api/teams';
 import type { InvitationView } from '../../api/types';
 
@@ -25,7 +25,20 @@ export function InvitationsTable({ teamId, invitations, loading }: { teamId: str
         {
           title: 'Status',
           dataIndex: 'status',
-          render: (status: string) => <Tag color={status === 'expired' ? 'warning' : 'processing'}>{status}</Tag>,
+          render: (status: string, i) => (
+            <Space size={4} wrap>
+              <Tag color={status === 'expired' ? 'warning' : 'processing'}>{status}</Tag>
+              {i.mailStatus === 'pending' && status === 'pending' ? (
+                <Tooltip
+                  title={`The e-mail could not be delivered yet${i.mailAttempts > 1 ? ` (${i.mailAttempts} attempts)` : ''}. The server sends it again by itself${i.nextMailAttemptAt ? `, next at ${when(i.nextMailAttemptAt)}` : ''}.`}
+                >
+                  <Tag color="gold" data-testid="mail-pending">
+                    mail pending
+                  </Tag>
+                </Tooltip>
+              ) : null}
+            </Space>
+          ),
         },
         { title: 'Last sent', dataIndex: 'lastSentAt', render: (v: string, i) => `${when(v)}${i.sendCount > 1 ? ` (${i.sendCount}×)` : ''}` },
         { title: 'Expires', dataIndex: 'expiresAt', render: when },
@@ -41,7 +54,7 @@ export function InvitationsTable({ teamId, invitations, loading }: { teamId: str
                   try {
                     const result = await resend.mutateAsync(i.id);
                     if (result.emailSent) message.success(`Sent again to ${i.email}; the earlier link no longer works.`);
-                    else message.warning('The e-mail could not be sent. Try again later.');
+                    else message.warning('The e-mail could not be sent yet; it is marked “mail pending” and goes out automatically when the mail server answers.');
                   } catch (error) {
                     message.error((error as Error).message);
                   }

@@ -13,7 +13,7 @@ function sent(email: string, emailSent = true): SentInvitation {
   const now = new Date().toISOString();
   return {
     emailSent,
-    invitation: { id: 'i1', email, role: 'viewer', status: 'pending', invitedBy: null, createdAt: now, lastSentAt: now, sendCount: 1, expiresAt: now },
+    invitation: { id: 'i1', email, role: 'viewer', status: 'pending', invitedBy: null, createdAt: now, lastSentAt: now, sendCount: 1, expiresAt: now, mailStatus: 'sent', mailAttempts: 0, nextMailAttemptAt: null },
   };
 }
 

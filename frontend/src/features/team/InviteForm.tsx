@@ -31,7 +31,7 @@ export function InviteForm({ onInvite }: { onInvite: (values: InviteValues) => P
           setNotice(
             result.emailSent
               ? { type: 'success', text: `Invitation sent to ${email}.` }
-              : { type: 'warning', text: `The invitation to ${email} was saved, but the e-mail could not be sent. Re-send it from the list.` },
+              : { type: 'warning', text: `The invitation to ${email} is saved, but the e-mail could not be sent yet. It stays marked “mail pending” in the list and is sent again automatically when the mail server answers.` },
           );
           form.resetFields(['email']);
         } catch (error) {
