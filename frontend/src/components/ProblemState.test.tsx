@@ -13,6 +13,8 @@ import { MapPage } from '../pages/MapPage';
 import { SetupPanel } from '../features/explorer/SetupPanel';
 import type { SetupDraft } from '../features/explorer/setupDraft';
 import { describeProblem } from './ProblemState';
+import { ComputeStatus, type ComputeStatusProps } from '../features/explorer/ComputeStatus';
+import { MapComputeError } from '../workers/engineContract';
 
 // The explorer (workers, d3) is not what these tests are about: a stand-in shows the map was opened.
 vi.mock('../features/explorer/ExplorerPage', () => ({ ExplorerPage: () => <div data-testid="explorer">explorer</div> }));
@@ -121,5 +123,20 @@ describe('the magnet safety note and the species field in the setup', () => {
     const field = screen.getByRole('combobox', { name: 'Species on the map' });
     expect(field.closest('.ant-select')?.textContent).toContain('Magnesium (Mg)');
     expect(field.closest('.ant-select')?.textContent).not.toContain('Cadmium');
+  });
+});
+
+describe('the computation’s failure message', () => {
+  it('explains a crashed engine worker in our words and offers Retry', () => {
+    const onRetry = vi.fn();
+    const error = new MapComputeError('crash', 'The engine worker stopped unexpectedly.');
+    // Only the fields the status box reads; the rest of the computation state is not its concern.
+    const state = { status: 'error', progress: null, error } as unknown as ComputeStatusProps['state'];
+    render(<ComputeStatus state={state} onCancel={() => {}} onRetry={onRetry} what="the map" />);
+    const alert = screen.getByRole('alert');
+    expect(alert.textContent).toContain('Could not compute the map');
+    expect(alert.textContent).toContain('Retry starts the engine afresh in this tab; your setup and saved maps are not affected.');
+    fireEvent.click(screen.getByRole('button', { name: 'Retry' }));
+    expect(onRetry).toHaveBeenCalledTimes(1);
   });
 });

@@ -28,7 +28,15 @@ export const ComputeStatus = memo(function ComputeStatus({ state, onCancel, onRe
         showIcon
         role="alert"
         title={cancelled ? `Computation of ${what} cancelled` : `Could not compute ${what}`}
-        description={state.error.message}
+        description={
+          state.error.kind === 'crash' ? (
+            <>
+              {state.error.message} Retry starts the engine afresh in this tab; your setup and saved maps are not affected. If it stops again, the browser may be short of memory: try a coarser grid or fewer orbitals.
+            </>
+          ) : (
+            state.error.message
+          )
+        }
         action={
           <Button size="small" type={cancelled ? 'default' : 'primary'} onClick={onRetry}>
             {cancelled ? 'Compute again' : 'Retry'}
