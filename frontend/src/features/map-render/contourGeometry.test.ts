@@ -31,6 +31,58 @@ describe('stepContours', () => {
   });
 });
 
+/** x where the region's boundary crosses the horizontal line y (the left-most crossing of any ring edge). */
+function crossingAt(geometry: { coordinates: number[][][][] }, y: number): number {
+  let best = Infinity;
+  for (const polygon of geometry.coordinates) {
+    for (const ring of polygon) {
+      for (let k = 0; k + 1 < ring.length; k++) {
+        const [x0, y0] = ring[k];
+        const [x1, y1] = ring[k + 1];
+        if ((y0 - y) * (y1 - y) <= 0 && y0 !== y1) best = Math.min(best, x0 + ((y - y0) / (y1 - y0)) * (x1 - x0));
+      }
+    }
+  }
+  return best;
+}
+
+describe('stepContours smoothing', () => {
+  // A boundary at a shallow angle: row j is bound from column 6 + ⌊j / 4⌋ on (a staircase of 1-cell steps every 4 rows).
+  const nx = 16;
+  const ny = 16;
+  const stairs = Array.from({ length: nx * ny }, (_, c) => (c % nx >= 6 + Math.floor(Math.floor(c / nx) / 4) ? 2 : 0));
+
+  it('keeps every node on its side: each row crosses between its last unbound and first bound column', () => {
+    const [bound] = stepContours(stairs, nx, ny, [1]);
+    for (let j = 0; j < ny; j++) {
+      const x = crossingAt(bound.geometry, j + 0.5);
+      const first = 6 + Math.floor(j / 4); // first bound node, at first + ½
+      expect(x).toBeGreaterThan(first - 0.5);
+      expect(x).toBeLessThan(first + 0.5);
+    }
+  });
+
+  it('draws the staircase as a slope: the crossing moves by under 0.6 cell from row to row (unsmoothed it jumps by a whole cell)', () => {
+    const [bound] = stepContours(stairs, nx, ny, [1]);
+    const xs = Array.from({ length: ny }, (_, j) => crossingAt(bound.geometry, j + 0.5));
+    for (let j = 1; j < ny; j++) {
+      expect(xs[j]).toBeGreaterThanOrEqual(xs[j - 1] - 1e-9);
+      expect(xs[j] - xs[j - 1]).toBeLessThan(0.6);
+    }
+  });
+
+  it('keeps nested regions nested: "resonance or better" contains "bound" on a field with a resonance band', () => {
+    // Unbound left, a one-column resonance band (1) on a slant, bound right.
+    const field = Array.from({ length: nx * ny }, (_, c) => {
+      const i = c % nx;
+      const edge = 6 + Math.floor(Math.floor(c / nx) / 3);
+      return i < edge ? 0 : i === edge ? 1 : 2;
+    });
+    const [atLeastResonance, bound] = stepContours(field, nx, ny, [0.5, 1.5]);
+    for (let j = 0; j < ny; j++) expect(crossingAt(atLeastResonance.geometry, j + 0.5)).toBeLessThan(crossingAt(bound.geometry, j + 0.5));
+  });
+});
+
 describe('filledContours', () => {
   it('interpolates linearly: the level 1.5 between nodes of 0 (x = 1½) and 2 (x = 2½) lies at x = 2¼', () => {
     const [band] = filledContours(LEFT_UNBOUND_RIGHT_BOUND, 4, 4, [1.5]);
@@ -59,10 +111,12 @@ describe('isoLinesOf', () => {
     const lines = isoLinesOf(bound.geometry, 5, 5);
     expect(lines).toHaveLength(1);
     expect(lines[0][0]).toEqual(lines[0][lines[0].length - 1]);
-    // The boundary passes halfway between node 2 (at 2.5) and its neighbours (at 1.5 and 3.5).
+    // The island stays (the bound node keeps its class), centred on the node at 2.5 and inside its cell.
     const xs = lines[0].map(([x]) => x);
-    expect(Math.min(...xs)).toBe(2);
-    expect(Math.max(...xs)).toBe(3);
+    expect((Math.min(...xs) + Math.max(...xs)) / 2).toBeCloseTo(2.5, 12);
+    expect(Math.min(...xs)).toBeGreaterThan(2);
+    expect(Math.max(...xs)).toBeLessThan(3);
+    expect(Math.max(...xs) - Math.min(...xs)).toBeGreaterThan(0.3);
   });
 });
 

@@ -22,19 +22,57 @@ export function filledContours(values: ArrayLike<number>, nx: number, ny: number
   return gen(values as number[]).map((c) => ({ threshold: c.value, geometry: { type: 'MultiPolygon', coordinates: c.coordinates } }));
 }
 
+/** Binomial smoothing kernel (σ = 1 cell), applied along rows and then columns. */
+const KERNEL = [1 / 16, 4 / 16, 6 / 16, 4 / 16, 1 / 16];
+/** After smoothing, a node stays at least this far on its own side of ½, so no node changes class. */
+export const SIDE_MARGIN = 0.1;
+
+/**
+ * The 0/1 indicator of a region made smooth for contouring at ½: blurred with a binomial kernel (σ = 1 cell; the grid
+ * edge repeated), then every node clamped back to its own side (inside ≥ ½ + margin, outside ≤ ½ − margin). The
+ * contour therefore separates exactly the same nodes as the raw indicator — no cell changes class, an isolated cell
+ * stays a (small) island — while where it crosses between two nodes follows the smoothed field, so a boundary that
+ * runs at a shallow angle to the grid is drawn as a sloped curve instead of a staircase. A straight boundary along the
+ * grid stays halfway between the nodes (the kernel is symmetric). Writes into `out`; `tmp` is scratch space.
+ */
+export function smoothIndicator(indicator: ArrayLike<number>, nx: number, ny: number, out: Float64Array, tmp: Float64Array): Float64Array {
+  const r = (KERNEL.length - 1) / 2;
+  for (let j = 0; j < ny; j++) {
+    for (let i = 0; i < nx; i++) {
+      let s = 0;
+      for (let k = -r; k <= r; k++) s += KERNEL[k + r] * indicator[j * nx + Math.min(nx - 1, Math.max(0, i + k))];
+      tmp[j * nx + i] = s;
+    }
+  }
+  for (let j = 0; j < ny; j++) {
+    for (let i = 0; i < nx; i++) {
+      let s = 0;
+      for (let k = -r; k <= r; k++) s += KERNEL[k + r] * tmp[Math.min(ny - 1, Math.max(0, j + k)) * nx + i];
+      const c = j * nx + i;
+      out[c] = indicator[c] >= 0.5 ? Math.max(s, 0.5 + SIDE_MARGIN) : Math.min(s, 0.5 - SIDE_MARGIN);
+    }
+  }
+  return out;
+}
+
 /**
  * Filled regions of a field of classes or counts: for each threshold t, the cells with value ≥ t. Each region is
- * contoured from its own 0/1 indicator at ½, so its boundary lies halfway between nodes (smoothed at corners), and
- * nested regions share boundaries exactly — a direct bound/unbound step never shows a sliver of the class between.
+ * contoured at ½ from its own 0/1 indicator, smoothed by `smoothIndicator`: every node keeps its class, a straight
+ * boundary lies halfway between nodes, and boundaries at an angle to the grid are smooth rather than stepped. Nested
+ * regions stay nested (smoothing keeps the order of the indicators) and share boundaries exactly where they coincide
+ * — a direct bound/unbound step never shows a sliver of the class between.
  */
 export function stepContours(values: ArrayLike<number>, nx: number, ny: number, thresholds: readonly number[]): FilledContour[] {
   const indicator = new Float64Array(nx * ny);
+  const smooth = new Float64Array(nx * ny);
+  const tmp = new Float64Array(nx * ny);
   const gen = contours().size([nx, ny]).thresholds([0.5]);
   return [...thresholds]
     .sort((a, b) => a - b)
     .map((threshold) => {
       for (let c = 0; c < indicator.length; c++) indicator[c] = values[c] >= threshold ? 1 : 0;
-      const [c] = gen(indicator as unknown as number[]);
+      smoothIndicator(indicator, nx, ny, smooth, tmp);
+      const [c] = gen(smooth as unknown as number[]);
       return { threshold, geometry: { type: 'MultiPolygon', coordinates: c.coordinates } as MultiPolygon };
     });
 }
