@@ -30,7 +30,7 @@ export class TestClock extends Clock {
  * The real application on an ephemeral loopback port, against the test database, with the local
  * mail fake and (unless a test asks for less) rate limits high enough not to get in the way.
  */
-export async function startTestApp(overrides: TestAppOverrides = {}, options: { clock?: Clock } = {}): Promise<TestApp> {
+export async function startTestApp(overrides: TestAppOverrides = {}, options: { clock?: Clock; logs?: 'json' | 'silent' } = {}): Promise<TestApp> {
   const base = loadConfig();
   const config: AppConfig = {
     ...base,
@@ -41,7 +41,7 @@ export async function startTestApp(overrides: TestAppOverrides = {}, options: { 
     // No background mail retries: tests that need them call InvitationMailRetryService.deliverDue().
     mail: { ...base.mail, smtpUrl: null, fakePort: 0, retryIntervalSeconds: 0, ...overrides.mail },
   };
-  const app = await createApp({ logs: 'silent', config, clock: options.clock });
+  const app = await createApp({ logs: options.logs ?? 'silent', config, clock: options.clock });
   await app.listen(0, '127.0.0.1');
   const address = app.getHttpServer().address() as { port: number };
   return { app, config, baseUrl: `http://127.0.0.1:${address.port}/api`, close: () => app.close() };
