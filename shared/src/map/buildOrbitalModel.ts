@@ -41,7 +41,7 @@ export interface BuildSettings {
 export const DEFAULT_BUILD: BuildSettings = {
   tolG: 3e-7,
   tolThreshold: 1e-12,
-  meshTolGround: 1e-7,
+  meshTolGround: 1e-6,
   meshTolExcited: 1e-10,
   degU0: 12,
   degS0: 6,
@@ -99,6 +99,29 @@ function nestedRows(old: Row[] | null, deg: number, sA: number, sB: number, make
 }
 
 /**
+ * ln λ_c,ν at the new row k (odd) of a nested grid, interpolated from the old rows at the even
+ * indices (Lobatto nodes of half the degree) by the barycentric formula (J.-P. Berrut,
+ * L. N. Trefethen, SIAM Review 46, 501 (2004)); null when the old rows are not all there.
+ */
+function predictFromEvenRows(cur: Row[], k: number, nu: number): number | null {
+  const n = cur.length - 1;
+  if (n % 2 !== 0 || k % 2 !== 1) return null;
+  const half = n / 2;
+  const x = -Math.cos((Math.PI * k) / n);
+  let num = 0;
+  let den = 0;
+  for (let j = 0; j <= half; j++) {
+    const r = cur[2 * j];
+    if (r === undefined || !(r.thr[nu] > 0)) return null;
+    const xj = -Math.cos((Math.PI * j) / half);
+    const w = (j % 2 === 0 ? 1 : -1) * (j === 0 || j === half ? 0.5 : 1) / (x - xj);
+    num += w * Math.log(r.thr[nu]);
+    den += w;
+  }
+  return num / den;
+}
+
+/**
  * Builds the interpolation model of orbital m over a map (model.md §2, "Whole maps fast"):
  *  1. ground state: G_0(ln α, ln B) on a tensor Chebyshev–Lobatto grid, degrees doubled (nested,
  *     every old node reused, or a predicted degree in u) until twice the last two coefficient
@@ -140,7 +163,7 @@ export function buildOrbitalModel(
     if (nu === 0) return 0;
     const sol = solverFor(row, nu);
     row.thrNode ??= [];
-    row.thrNode[nu] ??= sol.threshold(nu, Math.log(row.thr[nu]), 1e-9);
+    row.thrNode[nu] ??= sol.threshold(nu, Math.log(row.thr[nu]), 1e-9, row.solver.lastThresholdSlope);
     return row.thrNode[nu];
   };
 
@@ -203,14 +226,18 @@ export function buildOrbitalModel(
     }
     sA = Math.min(sA, sB - 1e-9);
     // rows of this level: own mesh (sized for λ ≤ λ_c,ν + λ_max(B)) and own threshold on it
+    let thrSlope = NaN; // dΨ/d ln λ at the last threshold found (Newton hint for the next row)
     const makeRow = (s: number, k: number, cur: Row[]): Row => {
       const left = cur[k - 1];
       const right = k + 1 < cur.length ? cur[k + 1] : undefined;
       let guess: number;
       let spread: number;
       if (left !== undefined && right !== undefined) {
-        guess = 0.5 * (Math.log(left.thr[nu]) + Math.log(right.thr[nu]));
-        spread = 0.5 * Math.abs(Math.log(right.thr[nu]) - Math.log(left.thr[nu])) + 1e-9;
+        // a new row of a nested grid: the interpolant of the old rows (every other one) predicts the
+        // threshold to about the old curve's tail; the linear midpoint bounds the spread
+        const mid = 0.5 * (Math.log(left.thr[nu]) + Math.log(right.thr[nu]));
+        guess = predictFromEvenRows(cur, k, nu) ?? mid;
+        spread = Math.min(0.5 * Math.abs(Math.log(right.thr[nu]) - Math.log(left.thr[nu])) + 1e-9, Math.abs(guess - mid) + 1e-7);
       } else if (left !== undefined) {
         guess = Math.log(left.thr[nu]) + (s - left.s) * 0.5;
         spread = 0.5 * (s - left.s) + 1e-3;
@@ -222,7 +249,8 @@ export function buildOrbitalModel(
       for (let attempt = 0; ; attempt++) {
         const solver = newSolver(s, lamRef, settings.meshTolExcited);
         const thr: number[] = [];
-        thr[nu] = solver.threshold(nu, guess, spread);
+        thr[nu] = solver.threshold(nu, guess, spread, thrSlope);
+        if (solver.lastThresholdSlope > 0) thrSlope = solver.lastThresholdSlope;
         const need = thr[nu] + lamMax(s);
         if (need <= lamRef || attempt >= 3 || !Number.isFinite(need)) return { s, solver, thr };
         lamRef = need * 1.1;
@@ -260,7 +288,7 @@ export function buildOrbitalModel(
         for (const k of [0, R >> 1, R]) {
           const r = rows[k];
           const fine = newSolver(r.s, r.solver.lambdaRef, settings.meshTolExcited, 2);
-          const f = fine.threshold(nu, Math.log(r.thr[nu]), 1e-9);
+          const f = fine.threshold(nu, Math.log(r.thr[nu]), 1e-9, r.solver.lastThresholdSlope);
           disc = Math.max(disc, Math.abs(f - r.thr[nu]) / f);
         }
         thresholds.push({ nu, sA, sB, deg: R, coef, relErr: 2 * tail + disc });
@@ -480,7 +508,7 @@ export function buildOrbitalModel(
         // is accounted for per cell)
         const sol = solverFor(r, nu);
         const fine = newSolver(r.s, sol.lambdaRef, nu === 0 ? settings.meshTolGround : settings.meshTolNode, 2);
-        const thrFine = nu === 0 ? 0 : fine.threshold(nu, Math.log(nodeThreshold(r, nu)), 1e-9);
+        const thrFine = nu === 0 ? 0 : fine.threshold(nu, Math.log(nodeThreshold(r, nu)), 1e-9, sol.lastThresholdSlope);
         for (const i of [0, U >> 1, U]) {
           const u = uOf(q, xs[i], r);
           const lambda = thrFine + Math.exp(u);

@@ -1,6 +1,8 @@
 import { scaledPotential } from '../potential/scaledPotential.js';
 import { clenshaw } from './chebyshev.js';
 import { orbitalCellFlags } from './cellFlags.js';
+import { CUTOFF_DOMINATED_RATIO, NON_ADIABATIC_RATIO } from '../levels/levelFlags.js';
+import { MAP_FLAG } from './mapTypes.js';
 import { directOrbital } from './directOrbital.js';
 import type { OrbitalModel, SurfaceModel } from './orbitalModel.js';
 
@@ -40,6 +42,88 @@ function rowCoefficients(sf: SurfaceModel, y: number, out: Float64Array): void {
   for (let i = 0; i <= sf.degU; i++) out[i] = clenshaw(sf.coef, sf.degS, i * W, 1, y);
 }
 
+/** Flag bits as plain numbers (read once: the hot loop below should not touch module bindings). */
+const FLAG_CUTOFF = MAP_FLAG.CUTOFF_DOMINATED;
+const FLAG_NON_ADIABATIC = MAP_FLAG.NON_ADIABATIC;
+const FLAG_BELOW_FLOOR = MAP_FLAG.BELOW_FLOOR;
+const RATIO_CUTOFF = CUTOFF_DOMINATED_RATIO;
+const RATIO_NON_ADIABATIC = NON_ADIABATIC_RATIO;
+
+/** Per-column data of an orbital's ground surface over one α axis: ln α and T_p(ξ_i), p = 0…degU. */
+interface ColumnTable {
+  alphas: Float64Array;
+  lnAlpha: Float64Array;
+  tmat: Float64Array;
+}
+/** Column tables by model (a map is filled in chunks of rows: the table is made once per model and α axis). */
+const COLUMN_TABLES = new WeakMap<OrbitalModel, ColumnTable>();
+
+function columnTable(model: OrbitalModel, alphas: Float64Array): ColumnTable {
+  const cached = COLUMN_TABLES.get(model);
+  if (cached !== undefined && cached.alphas === alphas) return cached;
+  const gs = model.ground.surfaces[0];
+  const nA = alphas.length;
+  const UG = gs.degU;
+  const lnAlpha = new Float64Array(nA);
+  for (let i = 0; i < nA; i++) lnAlpha[i] = Math.log(alphas[i]);
+  const tmat = new Float64Array(nA * (UG + 1));
+  for (let i = 0; i < nA; i++) {
+    const xi = Math.min(1, Math.max(-1, (2 * (lnAlpha[i] - gs.uA)) / (gs.uB - gs.uA) - 1));
+    let t0 = 1;
+    let t1 = xi;
+    tmat[i * (UG + 1)] = 1;
+    if (UG >= 1) tmat[i * (UG + 1) + 1] = xi;
+    for (let p = 2; p <= UG; p++) {
+      const t2 = 2 * xi * t1 - t0;
+      tmat[i * (UG + 1) + p] = t2;
+      t0 = t1;
+      t1 = t2;
+    }
+  }
+  const table = { alphas, lnAlpha, tmat };
+  COLUMN_TABLES.set(model, table);
+  return table;
+}
+
+/**
+ * Ground-state G of rows r…r+3 (coefficient vectors a0…a3, some may repeat) at every column: four
+ * independent sums per column share each T_p(ξ_i) load (the products are the same as one row at a
+ * time, term by term, so the result does not depend on the blocking).
+ */
+function groundRows4(
+  tmat: Float64Array,
+  W: number,
+  nA: number,
+  a0: Float64Array,
+  a1: Float64Array,
+  a2: Float64Array,
+  a3: Float64Array,
+  out: Float64Array,
+  o0: number,
+  o1: number,
+  o2: number,
+  o3: number,
+): void {
+  for (let i = 0; i < nA; i++) {
+    const o = i * W;
+    let g0 = 0;
+    let g1 = 0;
+    let g2 = 0;
+    let g3 = 0;
+    for (let p = 0; p < W; p++) {
+      const tv = tmat[o + p];
+      g0 += tv * a0[p];
+      g1 += tv * a1[p];
+      g2 += tv * a2[p];
+      g3 += tv * a3[p];
+    }
+    out[o0 + i] = g0;
+    out[o1 + i] = g1;
+    out[o2 + i] = g2;
+    out[o3 + i] = g3;
+  }
+}
+
 /**
  * Fills the rows [rowStart, rowEnd) of orbital m from its interpolation model (the target arrays
  * must be zero where nothing is written: unbound levels are left at 0): per level, the
@@ -59,8 +143,6 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
   const floor = t.floorHartree;
   let maxRelError = 0;
   let directSolves = 0;
-  const lnAlpha = new Float64Array(nA);
-  for (let i = 0; i < nA; i++) lnAlpha[i] = Math.log(t.alphas[i]);
   const ground = model.ground;
   const exc = model.excited;
   // Ground state: one surface in (ln α, ln B) — its u-coordinate ξ depends on the column only, so
@@ -70,21 +152,23 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
   }
   const gs = ground.surfaces[0];
   const UG = gs.degU;
-  const tmat = new Float64Array(nA * (UG + 1));
-  for (let i = 0; i < nA; i++) {
-    const xi = Math.min(1, Math.max(-1, (2 * (lnAlpha[i] - gs.uA)) / (gs.uB - gs.uA) - 1));
-    let t0 = 1;
-    let t1 = xi;
-    tmat[i * (UG + 1)] = 1;
-    if (UG >= 1) tmat[i * (UG + 1) + 1] = xi;
-    for (let p = 2; p <= UG; p++) {
-      const t2 = 2 * xi * t1 - t0;
-      tmat[i * (UG + 1) + p] = t2;
-      t0 = t1;
-      t1 = t2;
-    }
+  const { lnAlpha, tmat } = columnTable(model, t.alphas);
+  // G of the ground state for every row of the block, four rows at a time
+  const nRows = t.rowEnd - t.rowStart;
+  const rowCoef: Float64Array[] = [];
+  for (let r = 0; r < nRows; r++) {
+    const a = new Float64Array(UG + 1);
+    rowCoefficients(gs, yOf(Math.log(t.fieldsAu[t.rowStart + r]), gs.sA, gs.sB), a);
+    rowCoef.push(a);
   }
-  const aG = new Float64Array(UG + 1);
+  const groundG = new Float64Array(nRows * nA);
+  for (let r = 0; r < nRows; r += 4) {
+    const q = (k: number): number => Math.min(r + k, nRows - 1);
+    groundRows4(tmat, UG + 1, nA, rowCoef[q(0)], rowCoef[q(1)], rowCoef[q(2)], rowCoef[q(3)], groundG, q(0) * nA, q(1) * nA, q(2) * nA, q(3) * nA);
+  }
+  // flag bits that depend on the column only
+  const cutoffFlag = new Uint8Array(nA);
+  if (m === 0) for (let i = 0; i < nA; i++) if (t.alphas[i] / (t.cutoffBohr * t.cutoffBohr) >= RATIO_CUTOFF) cutoffFlag[i] = FLAG_CUTOFF;
   // Excited levels: one surface per ν (index ν − 1).
   const nLev = model.levels;
   const exSurf: SurfaceModel[] = [];
@@ -102,7 +186,6 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
     const s = Math.log(B);
     const rhoC = t.cutoffBohr * Math.sqrt(B);
     const depth0 = Math.abs(scaledPotential(m, 0, rhoC));
-    rowCoefficients(gs, yOf(s, gs.sA, gs.sB), aG);
     const errG0 = gs.errG;
     let nExc = 0;
     if (exc !== null && s >= exc.sA) {
@@ -123,7 +206,7 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
         }
       }
     }
-    const W = UG + 1;
+    const gRow = (j - t.rowStart) * nA;
     for (let i = 0; i < nA; i++) {
       const alpha = t.alphas[i];
       const lambda = alpha * B;
@@ -131,9 +214,7 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
       let direct = false;
       // ground state
       const lnLam = lnAlpha[i] + s;
-      let G0 = 0;
-      const o = i * W;
-      for (let p = 0; p < W; p++) G0 += tmat[o + p] * aG[p];
+      const G0 = groundG[gRow + i];
       if (!(errG0 <= SAFETY * tol) || !Number.isFinite(G0)) direct = true;
       eps[0] = Math.exp(G0 + 2 * lnLam);
       err[0] = errG0;
@@ -224,7 +305,8 @@ export function evaluateOrbitalRows(model: OrbitalModel, t: RowBlockTarget): { m
         kept = k + 1;
       }
       t.counts[base] = kept;
-      t.flags[base] = orbitalCellFlags(m, alpha, t.cutoffBohr, kept > 0 ? eps[0] : 0, dropped, false);
+      // the bits of orbitalCellFlags (not direct), inline
+      t.flags[base] = cutoffFlag[i] | (kept > 0 && eps[0] > RATIO_NON_ADIABATIC ? FLAG_NON_ADIABATIC : 0) | (dropped ? FLAG_BELOW_FLOOR : 0);
     }
   }
   return { maxRelError, directSolves };

@@ -33,6 +33,8 @@ export class OrbitalRowSolver {
   sweeps = 0;
   /** dF/d ln ε near the root found by the last lnLevel call (a hint for the next node's search). */
   lastSlope = NaN;
+  /** dΨ/d ln λ near the root found by the last threshold call (a hint for the next row's search). */
+  lastThresholdSlope = NaN;
 
   constructor(
     readonly m: number,
@@ -139,16 +141,62 @@ export class OrbitalRowSolver {
 
   /**
    * Threshold coupling λ_c,ν (ν ≥ 1) on this row's mesh: the root of Ψ(λ) = (⌊ν/2⌋ + 1)π for the
-   * parity ν mod 2, searched in ln λ from the prediction `guessLn` ± `spread`. Returns +Infinity if
-   * the level does not appear below 4·lambdaRef.
+   * parity ν mod 2 (Ψ increases with λ), searched in ln λ from the prediction `guessLn` ± `spread`:
+   * secant steps (the first a Newton step when `slopeHint` ≈ dΨ/d ln λ is given and plausible),
+   * stopped when the estimated error of the iterate is below 1e-14 in ln λ; if the secant
+   * misbehaves, a bracket and Brent's method to the same tolerance. Returns +Infinity if the level
+   * does not appear below 4·lambdaRef (0 if it exists at every coupling down to e^−700).
+   * `lastThresholdSlope` is left at dΨ/d ln λ near the root (a hint for the next row).
    */
-  threshold(nu: number, guessLn: number, spread: number): number {
+  threshold(nu: number, guessLn: number, spread: number, slopeHint = NaN): number {
     const odd = (nu & 1) === 1;
     const target = ((nu >> 1) + 1) * Math.PI;
     const H = (x: number): number => this.phase(Math.exp(x), odd) - target;
     const xMax = Math.log(4 * this.lambdaRef);
+    const d0 = Math.min(Math.max(spread, 1e-12), 0.5);
+    // bracket bookkeeping: lo has H < 0 (level absent), hi has H ≥ 0
+    let lo = -Infinity;
+    let hi = Infinity;
+    const note = (x: number, h: number): void => {
+      if (h < 0) lo = Math.max(lo, x);
+      else hi = Math.min(hi, x);
+    };
+    let x0 = Math.min(guessLn, xMax);
+    let h0 = H(x0);
+    note(x0, h0);
+    let x1 = h0 < 0 ? x0 + d0 : x0 - d0;
+    if (slopeHint > 0) {
+      const nt = x0 - h0 / slopeHint;
+      if (Math.abs(nt - x0) < 4 * d0) x1 = nt === x0 ? x0 + 1e-14 : nt;
+    }
+    x1 = Math.min(x1, xMax);
+    let h1 = H(x1);
+    note(x1, h1);
+    for (let it = 0; it < 10; it++) {
+      if (h1 === h0 || x1 === x0) break;
+      const slope = (h1 - h0) / (x1 - x0);
+      if (slope > 0) this.lastThresholdSlope = slope;
+      const step = -h1 / slope;
+      if (!Number.isFinite(step) || Math.abs(step) > 1) break;
+      const x2 = x1 + step;
+      if (x2 <= lo || x2 >= hi || x2 > xMax) break;
+      // secant error: e₂ ≈ C·e₁·e₀, e₁ ≈ |step|, e₀ ≈ |x₀ − x₂|, C = Ψ''/(2Ψ') = O(1) in ln λ
+      if (Math.abs(step) * (Math.abs(x0 - x2) + 1e-6) * SECANT_C < LN_LAMBDA_TOL || Math.abs(step) < LN_LAMBDA_TOL) return Math.exp(x2);
+      x0 = x1;
+      h0 = h1;
+      x1 = x2;
+      h1 = H(x1);
+      note(x1, h1);
+      if (h1 === 0) return Math.exp(x1);
+    }
+    return this.thresholdBracketed(H, xMax, Number.isFinite(lo) ? lo : x0, d0);
+  }
+
+
+  /** Fallback of `threshold`: a bracket grown ×4 per try from `start` ± d, then Brent's method. */
+  private thresholdBracketed(H: (x: number) => number, xMax: number, start: number, spread: number): number {
     let d = Math.max(spread, 1e-12);
-    let a = Math.min(guessLn - d, xMax);
+    let a = Math.min(start - d, xMax);
     let ha = H(a);
     let b: number;
     let hb: number;
@@ -164,7 +212,7 @@ export class OrbitalRowSolver {
       } while (ha >= 0 && a > -700);
       if (ha >= 0) return 0;
     } else {
-      b = Math.min(guessLn + d, xMax);
+      b = Math.min(start + d, xMax);
       hb = H(b);
       while (hb < 0) {
         if (b >= xMax) return Infinity;

@@ -35,7 +35,7 @@ export function prepareBindingMap(setupIn: MapSetup, options: BindingMapOptions 
     rowS,
     cutoffBohr: setup.shortRange.cutoffBohr,
   };
-  const settings = { ...DEFAULT_BUILD, tolG: tolerance * 0.3 };
+  const settings = { ...DEFAULT_BUILD, tolG: tolerance * 0.4 };
   const mMax = setup.orbitals.mMax;
   const orbitals = [];
   let levelsPerOrbital = 1;
