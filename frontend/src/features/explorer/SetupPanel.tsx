@@ -1,5 +1,5 @@
 import { memo, useMemo, type ReactNode } from 'react';
-import { Button, Divider, Form, Input, InputNumber, Segmented, Select, Space, Tooltip, Typography } from 'antd';
+import { Button, Divider, Form, Input, Segmented, Select, Space, Tooltip, Typography } from 'antd';
 import { DeleteOutlined, PlusOutlined } from '@ant-design/icons';
 import { SETUP_LIMITS, SETUP_PRESETS, applyPreset, type AlphaUnit, type DisplayEnergyUnit, type FieldUnit, type IonMotion, type SetupIssue } from '@fieldbound/shared';
 import {
@@ -8,10 +8,9 @@ import {
 } from '../map-render/displayUnits';
 import { formatScientific, parseScientific } from '../map-render/formatNumber';
 import { issuesAt, setIn, type SetupDraft } from './setupDraft';
+import { UnitNumberInput } from './UnitNumberInput';
 import { MagnetSafetyNote } from '../../components/MagnetSafetyNote';
 
-/** Shown values: 10 significant figures, so a unit round trip never shows 10.000000000000002. */
-const shownValue = (x: number | undefined) => (x === undefined || !Number.isFinite(x) ? null : Number(x.toPrecision(10)));
 
 interface NumberFieldProps {
   label: ReactNode;
@@ -26,22 +25,15 @@ interface NumberFieldProps {
   testId?: string;
 }
 
-/** A number in the chosen unit; stores the canonical value; shows the setup rules' messages beside it. */
-function NumberField({ label, path, issues, value, toDisplay = (x) => x, fromDisplay = (x) => x, onChange, suffix, integer, testId }: NumberFieldProps) {
+/**
+ * A number in the chosen unit; stores the canonical value (shown to 6 significant figures, replaced only when the
+ * person types); shows the setup rules' messages beside it.
+ */
+function NumberField({ label, path, issues, value, toDisplay, fromDisplay, onChange, suffix, integer, testId }: NumberFieldProps) {
   const messages = issuesAt(issues, path);
-  const shown = value === undefined || !Number.isFinite(value) ? null : shownValue(toDisplay(value));
   return (
     <Form.Item label={label} validateStatus={messages.length ? 'error' : undefined} help={messages.length ? messages.join('; ') : undefined} style={{ marginBottom: 10 }}>
-      <InputNumber
-        value={shown}
-        onChange={(v) => onChange(v === null || v === undefined || Number.isNaN(Number(v)) ? undefined : fromDisplay(Number(v)))}
-        suffix={suffix}
-        precision={integer ? 0 : undefined}
-        stringMode={false}
-        style={{ width: '100%' }}
-        data-testid={testId}
-        aria-label={typeof label === 'string' ? label : path}
-      />
+      <UnitNumberInput value={value} toDisplay={toDisplay} fromDisplay={fromDisplay} onChange={onChange} suffix={suffix} integer={integer} data-testid={testId} aria-label={typeof label === 'string' ? label : path} />
     </Form.Item>
   );
 }
@@ -219,8 +211,9 @@ export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, on
           key={`${energyUnit}:${levelsText}`}
           aria-label="Binding-energy contours"
           defaultValue={levelsText}
-          onBlur={(e) => set(['contours', 'levelsKelvin'])(parseLevels(e.target.value, energyUnit))}
-          onPressEnter={(e) => set(['contours', 'levelsKelvin'])(parseLevels((e.target as HTMLInputElement).value, energyUnit))}
+          // Unchanged text keeps the stored levels exactly (the shown text is rounded to 4 figures).
+          onBlur={(e) => e.target.value !== levelsText && set(['contours', 'levelsKelvin'])(parseLevels(e.target.value, energyUnit))}
+          onPressEnter={(e) => (e.target as HTMLInputElement).value !== levelsText && set(['contours', 'levelsKelvin'])(parseLevels((e.target as HTMLInputElement).value, energyUnit))}
         />
       </Form.Item>
 
@@ -230,8 +223,8 @@ export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, on
           <Form.Item validateStatus={issuesAt(issues, `fieldBands.${k}`).length ? 'error' : undefined} help={issuesAt(issues, `fieldBands.${k}`).join('; ') || undefined} style={{ marginBottom: 4, width: '100%' }}>
             <Space.Compact block>
               <Input aria-label={`Field band ${k + 1} label`} value={band.label} onChange={(e) => set(['fieldBands', k, 'label'])(e.target.value)} style={{ width: '40%' }} />
-              <InputNumber aria-label={`Field band ${k + 1} from`} value={shownValue(fieldTeslaToDisplay(band.minTesla, fieldUnit))} onChange={(v) => set(['fieldBands', k, 'minTesla'])(v === null ? undefined : fieldDisplayToTesla(Number(v), fieldUnit))} style={{ width: '25%' }} />
-              <InputNumber aria-label={`Field band ${k + 1} to`} value={shownValue(fieldTeslaToDisplay(band.maxTesla, fieldUnit))} onChange={(v) => set(['fieldBands', k, 'maxTesla'])(v === null ? undefined : fieldDisplayToTesla(Number(v), fieldUnit))} style={{ width: '25%' }} />
+              <UnitNumberInput aria-label={`Field band ${k + 1} from`} value={band.minTesla} toDisplay={(x) => fieldTeslaToDisplay(x, fieldUnit)} fromDisplay={(x) => fieldDisplayToTesla(x, fieldUnit)} onChange={set(['fieldBands', k, 'minTesla'])} style={{ width: '25%' }} />
+              <UnitNumberInput aria-label={`Field band ${k + 1} to`} value={band.maxTesla} toDisplay={(x) => fieldTeslaToDisplay(x, fieldUnit)} fromDisplay={(x) => fieldDisplayToTesla(x, fieldUnit)} onChange={set(['fieldBands', k, 'maxTesla'])} style={{ width: '25%' }} />
               <Button aria-label={`Remove field band ${k + 1}`} icon={<DeleteOutlined />} onClick={() => set(['fieldBands'])(draft.fieldBands.filter((_, j) => j !== k))} />
             </Space.Compact>
           </Form.Item>
