@@ -15,10 +15,16 @@ import { ProfilePage } from './pages/ProfilePage';
 import { SpeciesPage } from './pages/SpeciesPage';
 import { MailboxPage } from './pages/MailboxPage';
 import { NotFoundPage } from './pages/NotFoundPage';
+import { MapLecturePage, SharedLecturePage } from './pages/LecturePages';
 
 export function App() {
   return (
     <Routes>
+      {/* Lecture view: full screen, outside the app's top bar. */}
+      <Route path="view/:token/present" element={<SharedLecturePage />} />
+      <Route element={<RequireAuth />}>
+        <Route path="maps/:mapId/present" element={<MapLecturePage />} />
+      </Route>
       <Route element={<AppShell />}>
         {/* Public: anyone may open these. */}
         <Route path="sign-in" element={<SignInPage />} />

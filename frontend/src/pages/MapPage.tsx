@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { App, Button, Space, Spin, Tooltip, Typography } from 'antd';
-import { ArrowLeftOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
+import { ArrowLeftOutlined, DesktopOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { canonicalJson, setupFingerprint, type MapDetail, type MapSetup, type SpeciesEntry } from '@fieldbound/shared';
@@ -15,6 +15,7 @@ import { ShareDialog } from '../features/maps/ShareDialog';
 import { UnsavedChangesGuard } from '../features/maps/UnsavedChangesGuard';
 import { VersionsDrawer } from '../features/maps/VersionsDrawer';
 import { summaryRequest, thumbnailPng } from '../features/maps/resultSummary';
+import { useMemberPins } from '../features/pins/MemberPins';
 import { palette } from '../theme/palette';
 import { ProblemState } from '../components/ProblemState';
 
@@ -103,6 +104,7 @@ function MapEditor({ map }: { map: MapDetail }) {
   const [versionsOpen, setVersionsOpen] = useState(false);
   const [shareOpen, setShareOpen] = useState(false);
   const explorerBox = useRef<HTMLDivElement>(null);
+  const pins = useMemberPins({ mapId: map.id, mapVersion: map.version, canEdit });
 
   const dirty = canEdit && (current === null || !sameContent(current, map.setup));
   const saveState: SaveState = update.isPending || restoreVersion.isPending ? 'saving' : !dirty ? 'saved' : current === null ? 'invalid' : 'unsaved';
@@ -224,6 +226,12 @@ function MapEditor({ map }: { map: MapDetail }) {
         </Typography.Text>
         <div style={{ flex: 1 }} />
         <Space size={6}>
+          {pins.headerButton}
+          <Tooltip title="Full-screen lecture view of this map">
+            <Button size="small" icon={<DesktopOutlined />} onClick={() => navigate(`/maps/${map.id}/present`)}>
+              Present
+            </Button>
+          </Tooltip>
           <Button size="small" icon={<HistoryOutlined />} onClick={() => setVersionsOpen(true)}>
             Versions
           </Button>
@@ -254,9 +262,11 @@ function MapEditor({ map }: { map: MapDetail }) {
           speciesCatalogue={markers}
           onSetupChange={setCurrent}
           onComputed={setComputed}
+          overlay={pins.overlay}
           style={{ height: `calc(100vh - 48px - ${BAR_HEIGHT}px)` }}
         />
       </div>
+      {pins.drawer}
       <UnsavedChangesGuard when={shouldWarn} message="This map has unsaved changes. Leave anyway and lose them?" />
       <ConflictModal
         theirs={conflict?.theirs ?? null}

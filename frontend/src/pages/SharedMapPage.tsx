@@ -1,6 +1,8 @@
-import { Alert, Result, Spin, Typography } from 'antd';
-import { ClockCircleOutlined, DisconnectOutlined, EyeOutlined } from '@ant-design/icons';
-import { useParams } from 'react-router-dom';
+import { Alert, Button, Result, Spin, Typography } from 'antd';
+import { ClockCircleOutlined, DesktopOutlined, DisconnectOutlined, EyeOutlined } from '@ant-design/icons';
+import { useNavigate, useParams } from 'react-router-dom';
+import type { SharedMapView } from '@fieldbound/shared';
+import { useSharedPins } from '../features/pins/SharedPins';
 import { ApiError } from '../api/client';
 import { useSharedMap } from '../api/viewingLinks';
 import { ExplorerPage } from '../features/explorer/ExplorerPage';
@@ -10,7 +12,7 @@ import { ProblemState } from '../components/ProblemState';
 const BAR_HEIGHT = 44;
 
 /** Why a viewing link did not open, in the visitor's terms. */
-function LinkRefused({ error, onRetry }: { error: unknown; onRetry: () => void }) {
+export function LinkRefused({ error, onRetry }: { error: unknown; onRetry: () => void }) {
   const status = error instanceof ApiError ? error.status : 0;
   if (status === 410) {
     return (
@@ -55,7 +57,13 @@ export function SharedMapPage() {
   }
   if (shared.isError || !shared.data) return <LinkRefused error={shared.error} onRetry={() => shared.refetch()} />;
 
-  const map = shared.data;
+  return <SharedMapBody token={token!} map={shared.data} />;
+}
+
+/** The opened link: the map computed here, its pins read-only if the link shows them, kept live. */
+function SharedMapBody({ token, map }: { token: string; map: SharedMapView }) {
+  const pins = useSharedPins({ token, pins: map.pins });
+  const navigate = useNavigate();
   return (
     <div style={{ display: 'flex', flexDirection: 'column' }} data-testid="shared-map">
       <header style={{ height: BAR_HEIGHT, display: 'flex', alignItems: 'center', gap: 12, padding: '0 12px', background: '#fff', borderBottom: `1px solid ${palette.unbound}` }}>
@@ -70,6 +78,11 @@ export function SharedMapPage() {
             · {map.description}
           </Typography.Text>
         )}
+        <div style={{ flex: 1 }} />
+        {pins.headerButton}
+        <Button size="small" icon={<DesktopOutlined />} onClick={() => navigate(`/view/${encodeURIComponent(token)}/present`)}>
+          Present
+        </Button>
       </header>
       <Alert
         banner
@@ -78,7 +91,8 @@ export function SharedMapPage() {
         style={{ fontSize: 12.5, padding: '4px 12px' }}
         message="Computed in your browser from the shared setup. The regions are model estimates (an electron bound to a fixed polarizable atom, one Landau orbital at a time); read the caution under the map before quoting a number."
       />
-      <ExplorerPage initialSetup={map.setup} readOnly style={{ height: `calc(100vh - 48px - ${BAR_HEIGHT}px - 30px)` }} />
+      <ExplorerPage initialSetup={map.setup} readOnly overlay={pins.overlay} style={{ height: `calc(100vh - 48px - ${BAR_HEIGHT}px - 30px)` }} />
+      {pins.drawer}
     </div>
   );
 }
