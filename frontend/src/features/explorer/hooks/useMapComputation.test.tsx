@@ -1,0 +1,63 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import { renderHook, waitFor } from '@testing-library/react';
+import { defaultSetup, type MapSetup } from '@fieldbound/shared';
+import { EnginePool } from '../../../workers/enginePool';
+import { FakeEngineWorker, fakeEngineApi } from '../../../workers/fakeWorkers';
+import { createMapCaches, useMapComputation } from './useMapComputation';
+
+let pool: EnginePool | null = null;
+afterEach(() => pool?.dispose());
+
+/** A pool of two fake engine workers that count every call by method. */
+function countingPool(calls: Record<string, number>) {
+  const api = fakeEngineApi();
+  const count = <A extends unknown[], R>(name: string, f: (...args: A) => R) => (...args: A) => {
+    calls[name] = (calls[name] ?? 0) + 1;
+    return f(...args);
+  };
+  return new EnginePool({
+    size: 2,
+    createWorker: () => new FakeEngineWorker({ prepareMap: count('prepareMap', api.prepareMap), evaluateRows: count('evaluateRows', api.evaluateRows), phaseRows: count('phaseRows', api.phaseRows) }) as unknown as Worker,
+  });
+}
+
+const base: MapSetup = { ...defaultSetup(), grid: { nAlpha: 4, nField: 8 }, motion: { kind: 'temperature', kelvin: 4 } };
+
+describe('useMapComputation', () => {
+  it('computes binding energies once: motion and τ changes rerun only phaseMap, display and contour changes nothing', { timeout: 30_000 }, async () => {
+    const calls: Record<string, number> = {};
+    pool = countingPool(calls);
+    const caches = createMapCaches();
+    const { result, rerender } = renderHook(({ setup }) => useMapComputation(pool, setup, caches, { timeoutMs: 5000 }), { initialProps: { setup: base } });
+    await waitFor(() => expect(result.current.state.status).toBe('done'));
+    expect(result.current.phase).not.toBeNull();
+    expect(calls).toEqual({ prepareMap: 1, evaluateRows: 4 });
+
+    // Another temperature and another observation time: classes again, binding energies reused.
+    rerender({ setup: { ...base, motion: { kind: 'temperature', kelvin: 77 }, observationTimeSeconds: 2 } });
+    await waitFor(() => expect(calls.phaseRows).toBe(4));
+    await waitFor(() => expect(result.current.phase).not.toBeNull());
+    expect(calls.prepareMap).toBe(1);
+    expect(calls.evaluateRows).toBe(4);
+
+    // Display, contour levels and the shown orbital: no engine call at all.
+    rerender({ setup: { ...base, motion: { kind: 'temperature', kelvin: 77 }, observationTimeSeconds: 2, contours: { levelsKelvin: [0.5] }, display: { ...base.display, energyUnit: 'GHz', shown: { kind: 'survivors' } } } });
+    await new Promise((r) => setTimeout(r, 50));
+    expect(calls).toEqual({ prepareMap: 1, evaluateRows: 4, phaseRows: 4 });
+
+    // Back to the first motion settings: the classes come from the cache.
+    rerender({ setup: base });
+    await waitFor(() => expect(result.current.phase).not.toBeNull());
+    expect(calls).toEqual({ prepareMap: 1, evaluateRows: 4, phaseRows: 4 });
+
+    // A fixed atom: no classes, nothing computed.
+    rerender({ setup: { ...base, motion: { kind: 'none' } } });
+    expect(result.current.phase).toBeNull();
+    expect(result.current.motionWanted).toBe(false);
+    expect(calls).toEqual({ prepareMap: 1, evaluateRows: 4, phaseRows: 4 });
+
+    // A binding input (the cutoff): a new model and new rows.
+    rerender({ setup: { ...base, shortRange: { ...base.shortRange, cutoffBohr: 3 } } });
+    await waitFor(() => expect(calls.prepareMap).toBe(2));
+  });
+});
