@@ -9,7 +9,7 @@ import { classifyWidthCode } from './classifyWidth.js';
 import { localShapeNumberStrided } from './localShapeNumber.js';
 import { transverseEnergyAt, type MotionSettings } from './motionSettings.js';
 import { stateWidthCore, WIDTH_FLAG } from './stateWidth.js';
-import { criticalTransverseEnergy, thermalFractionsInto } from './thermalEnsemble.js';
+import { criticalTransverseEnergiesInto, thermalFractionsInto } from './thermalEnsemble.js';
 
 /** Binding energies of a map (the fields of `BindingMapResult` this needs). */
 export interface CellBindings {
@@ -50,6 +50,7 @@ export function allocateCellMotionOutput(map: CellBindings, settings: MotionSett
 }
 
 const w = new Float64Array(3);
+const crit = new Float64Array(2);
 
 /**
  * Classify every state of every cell for the given motion settings (model.md §4):
@@ -108,9 +109,8 @@ export function classifyCells(map: CellBindings, settings: MotionSettings, out: 
           out.flags[idx] = bits;
           if (code === STATE_CLASS.BOUND) out.survivors[c]++;
           if (fr) {
-            const eb = criticalTransverseEnergy(e, m, p, B, M, hbarOverTau);
-            const eu = criticalTransverseEnergy(e, m, p, B, M, e);
-            thermalFractionsInto(eb, eu, settings.kT, omega, fr, 3 * idx);
+            criticalTransverseEnergiesInto(e, m, p, B, M, hbarOverTau, crit, 0);
+            thermalFractionsInto(crit[0]!, crit[1]!, settings.kT, omega, fr, 3 * idx);
           }
         }
       }

@@ -14,7 +14,7 @@ export { widthTableInto, TABLE_STATUS, WIDTH_TABLE_M_MAX, WIDTH_TABLE_RANGE } fr
 export { WIDTH_TABLE_GENERATOR } from './table/widthTableData.js';
 export { stateWidthInto, stateWidthCore, WIDTH_FLAG, DEFAULT_SHAPE_NUMBER } from './stateWidth.js';
 export { classifyWidthCode, stateClassName, type MotionStateClass } from './classifyWidth.js';
-export { criticalTransverseEnergy, thermalFractionsInto } from './thermalEnsemble.js';
+export { criticalTransverseEnergy, criticalTransverseEnergiesInto, thermalFractionsInto } from './thermalEnsemble.js';
 export {
   motionStates,
   type MotionStatesInput,

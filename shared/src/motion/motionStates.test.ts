@@ -12,7 +12,7 @@ import { classifyWidthCode } from './classifyWidth.js';
 import { motionStates, type MotionStateInput, type MotionStatesInput } from './motionStates.js';
 import { validateMotionSettings } from './motionSettings.js';
 import { stateWidthInto, WIDTH_FLAG } from './stateWidth.js';
-import { criticalTransverseEnergy, thermalFractionsInto } from './thermalEnsemble.js';
+import { criticalTransverseEnergiesInto, criticalTransverseEnergy, thermalFractionsInto } from './thermalEnsemble.js';
 
 const A = 40; // mass number
 const M = A * CODATA2018.atomicMassUnitInElectronMasses;
@@ -75,6 +75,45 @@ describe('monotonic growth of Γ with E⊥', () => {
         }
         expect(prev, `m=${m} p=${p}: destroyed at the strongest field`).toBe(Infinity);
       }
+  });
+});
+
+describe('critical energies against plain bisection of Γ(E⊥) (stateWidthInto)', () => {
+  /** Smallest E⊥ with Γ ≥ target, by bisection on ln E⊥ over [1e-30, 1] hartree (independent of the solver's brackets). */
+  function bisectCritical(eps: number, m: number, p: number, target: number): number {
+    const out = new Float64Array(3);
+    const reaches = (u: number): boolean => {
+      const f = stateWidthInto(eps, m, p, B, Math.exp(u), M, out);
+      return (f & WIDTH_FLAG.DESTROYED) !== 0 || out[0]! >= target;
+    };
+    let lo = Math.log(1e-30);
+    let hi = 0;
+    if (reaches(lo)) return 0;
+    for (let k = 0; k < 200 && hi - lo > 1e-12; k++) {
+      const mid = 0.5 * (lo + hi);
+      if (reaches(mid)) hi = mid;
+      else lo = mid;
+    }
+    return Math.exp(hi);
+  }
+
+  it('E_b and E_u of 300 seeded random states (m = 0…16, p = 2…9, ε = 1…3000 Ω) agree with bisection to 1e-7 relative, and with criticalTransverseEnergy', () => {
+    let seed = 7;
+    const rnd = (): number => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
+    const crit = new Float64Array(2);
+    const hbarOverTau = CODATA2018.atomicTimeInSecond;
+    for (let k = 0; k < 300; k++) {
+      const m = Math.floor(rnd() * 17);
+      const p = 2 + 7 * rnd();
+      const eps = OMEGA * 10 ** (3.5 * rnd());
+      criticalTransverseEnergiesInto(eps, m, p, B, M, hbarOverTau, crit, 0);
+      const eu = bisectCritical(eps, m, p, eps);
+      const eb = Math.min(bisectCritical(eps, m, p, hbarOverTau), eu);
+      const inputs = { m, p, epsOverOmega: eps / OMEGA };
+      expectClose(crit[1]!, eu, { rel: 1e-7, inputs, source: 'bisection of Γ(E⊥) = ε' });
+      expectClose(crit[0]!, eb, { rel: 1e-7, inputs, source: 'bisection of Γ(E⊥) = ħ/τ' });
+      expectClose(criticalTransverseEnergy(eps, m, p, B, M, eps), crit[1]!, { rel: 1e-7, inputs, source: 'same solver, one energy at a time' });
+    }
   });
 });
 

@@ -8,7 +8,7 @@ import { classifyWidthCode, stateClassName, type MotionStateClass } from './clas
 import { localShapeNumber } from './localShapeNumber.js';
 import { motionalField, transverseEnergyAt, validateMotionSettings, type MotionSettings, type MotionSettingsInput } from './motionSettings.js';
 import { stateWidthInto, WIDTH_FLAG } from './stateWidth.js';
-import { criticalTransverseEnergy, thermalFractionsInto } from './thermalEnsemble.js';
+import { criticalTransverseEnergiesInto, thermalFractionsInto } from './thermalEnsemble.js';
 
 /** One fixed-atom state (as returned by `levels`). */
 export interface MotionStateInput {
@@ -146,8 +146,10 @@ export function motionStates(input: MotionStatesInput): MotionStateResult[] {
       if (bits & WIDTH_FLAG.NO_STATE) {
         res.fractions = { bound: 0, resonance: 0, unbound: 1 };
       } else {
-        const eb = criticalTransverseEnergy(eps, s.m, p, B, M, settings.hbarOverTau);
-        const eu = criticalTransverseEnergy(eps, s.m, p, B, M, eps);
+        const crit = new Float64Array(2);
+        criticalTransverseEnergiesInto(eps, s.m, p, B, M, settings.hbarOverTau, crit, 0);
+        const eb = crit[0]!;
+        const eu = crit[1]!;
         thermalFractionsInto(eb, eu, settings.kT, omega, frac, 0);
         res.fractions = { bound: frac[0]!, resonance: frac[1]!, unbound: frac[2]! };
         res.criticalEnergiesHartree = { bound: Math.min(eb, eu), unbound: eu };

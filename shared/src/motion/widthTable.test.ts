@@ -10,7 +10,7 @@ import { GENERATOR_VERSION, TABLE_M, TABLE_P, TABLE_XI } from '../../scripts/wid
 import { traceState } from './exact/traceState.js';
 import { powerLawKappa } from './exact/zeroRangeSolver.js';
 import { WIDTH_TABLE_GENERATOR, WIDTH_TABLE_G, WIDTH_TABLE_M, WIDTH_TABLE_P, WIDTH_TABLE_XI } from './table/widthTableData.js';
-import { TABLE_STATUS, tableEnergyRatio, tableLnWidth, tablePBracket, widthTableInto } from './widthTable.js';
+import { TABLE_STATUS, tableEnergyRatio, tableLnWidth, tablePBracket, tableXiAtLnWidth, widthTableInto } from './widthTable.js';
 
 interface HeldOut {
   solverVersion: string;
@@ -117,6 +117,30 @@ describe('table limits and edges', () => {
     expect(widthTableInto(3, 3, 0.99, out) & TABLE_STATUS.DESTROYED).toBeTruthy();
     expect(widthTableInto(3, 3, NaN, out) & TABLE_STATUS.DESTROYED).toBeTruthy();
     expect(widthTableInto(3, 3, 30, out) & TABLE_STATUS.CONTINUED).toBeTruthy();
+  });
+
+  it('tableXiAtLnWidth inverts the interpolated table: ln(Γ/ε) at ξ* is lnT (1e-9), below lnT just above ξ*, ≥ lnT or destroyed just below', () => {
+    const br = new Float64Array(5);
+    let seed = 5;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    let inside = 0;
+    for (let k = 0; k < 2000; k++) {
+      const m = Math.floor(rnd() * 17);
+      const p = 2 + 7 * rnd();
+      const lnT = -60 * rnd();
+      tablePBracket(m, p, br);
+      const xs = tableXiAtLnWidth(br, lnT);
+      const above = tableLnWidth(br, xs * (1 + 1e-9));
+      expect(above < lnT || (xs === 1 && Number.isNaN(tableLnWidth(br, 0.99))), `m=${m} p=${p} lnT=${lnT} ξ*=${xs}`).toBe(true);
+      const y = tableLnWidth(br, xs);
+      if (xs > 1 && !Number.isNaN(y) && !Number.isNaN(tableLnWidth(br, xs * (1 - 1e-9)))) {
+        inside++;
+        expectClose(y, lnT, { rel: 0, abs: 1e-9, inputs: { m, p, lnT }, source: 'exact identity (inverse)' });
+      }
+      const below = tableLnWidth(br, xs * (1 - 1e-6));
+      expect(!(below < lnT), `below ξ*: m=${m} p=${p} lnT=${lnT} ξ*=${xs} y=${below}`).toBe(true);
+    }
+    expect(inside).toBeGreaterThan(1000);
   });
 
   it('the per-cell lookups (tablePBracket + tableLnWidth/tableEnergyRatio) equal widthTableInto (exact identity)', () => {

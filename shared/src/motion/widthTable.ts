@@ -210,3 +210,53 @@ export function tableLnWidth(br: Float64Array, xi: number): number {
   const g = (1 - wp) * ((1 - wx) * G[b0 + ix]! + wx * G[b0 + ix + 1]!) + wp * ((1 - wx) * G[b1 + ix]! + wx * G[b1 + ix + 1]!);
   return g - xi * xi;
 }
+
+/**
+ * The ξ at which the interpolated table (for a resolved p bracket) crosses ln(Γ/ε) = lnT: the largest
+ * ξ* such that ln(Γ/ε) < lnT for every ξ > ξ* (where the column is non-increasing, as the generator's
+ * monotone envelope makes it, ln(Γ/ε) ≥ lnT or destroyed for ξ ≤ ξ*). Inside a segment y = g − ξ²
+ * with g linear, so the crossing is the root of a quadratic; beyond the large-ξ end the continuation
+ * is solved by Newton steps; where a segment has a node without a state, ξ* is its upper node (the
+ * start of the destroyed region); XI_MIN when the whole column lies below lnT.
+ *
+ * @example
+ * const br = new Float64Array(5); tablePBracket(0, 9, br);
+ * tableXiAtLnWidth(br, tableLnWidth(br, 4.3)) // 4.3 (to rounding)
+ */
+export function tableXiAtLnWidth(br: Float64Array, lnT: number): number {
+  const b0 = br[0]!;
+  const b1 = br[1]!;
+  const wp = br[2]!;
+  const gAt = (k: number): number => (1 - wp) * G[b0 + k]! + wp * G[b1 + k]!;
+  const k1 = NX - 1;
+  const g1 = gAt(k1);
+  if (g1 === g1 && g1 - XI_MAX * XI_MAX >= lnT) {
+    // beyond the end: y = g1 − ξ² + b ln(ξ/ξ1), decreasing; Newton from the estimate without the log
+    const b = (1 - wp) * BB[br[3]!]! + wp * BB[br[3]! + 1]!;
+    let x = Math.sqrt(XI_MAX * XI_MAX + g1 - lnT);
+    for (let it = 0; it < 30; it++) {
+      const f = g1 - x * x + b * Math.log(x / XI_MAX) - lnT;
+      const dx = f / (2 * x - b / x);
+      x += dx;
+      if (Math.abs(dx) <= 1e-13 * x) break;
+    }
+    return x;
+  }
+  let gNext = g1;
+  for (let k = k1 - 1; k >= 0; k--) {
+    const x0 = XI[k]!;
+    const x1 = XI[k + 1]!;
+    const g0 = gAt(k);
+    if (g0 !== g0 || gNext !== gNext) return x1; // destroyed below x1 (a corner without a state)
+    if (g0 - x0 * x0 >= lnT) {
+      // g0 + s(ξ − x0) − ξ² = lnT on [x0, x1]: the larger root
+      const sl = (gNext - g0) / (x1 - x0);
+      const c = g0 - sl * x0 - lnT;
+      const disc = sl * sl + 4 * c;
+      const r = 0.5 * (sl + Math.sqrt(Math.max(0, disc)));
+      return r < x0 ? x0 : r > x1 ? x1 : r;
+    }
+    gNext = g0;
+  }
+  return XI_MIN;
+}
