@@ -144,13 +144,9 @@ export function buildOrbitalModel(
   const alphaMax = Math.exp(geo.lnAlphaMax);
   const lamMax = (s: number): number => alphaMax * Math.exp(s);
   let nodeSolves = 0;
-  let sweeps = 0;
-  const solvers: OrbitalRowSolver[] = [];
-  const newSolver = (s: number, lambdaRef: number, tol: number, refine = 1): OrbitalRowSolver => {
-    const r = new OrbitalRowSolver(m, rc * Math.exp(s / 2), lambdaRef, tol, refine);
-    solvers.push(r);
-    return r;
-  };
+  const work = { sweeps: 0 }; // Magnus sweeps of every solver of this build
+  const newSolver = (s: number, lambdaRef: number, tol: number, refine = 1): OrbitalRowSolver =>
+    new OrbitalRowSolver(m, rc * Math.exp(s / 2), lambdaRef, tol, refine, work);
 
   /** The mesh a node of level ν is solved on: the row's own (ground state) or its node mesh (excited). */
   const solverFor = (row: Row, nu: number): OrbitalRowSolver => {
@@ -300,7 +296,6 @@ export function buildOrbitalModel(
   if (K >= 1) excited = { sA: Math.min(...surfaces.map((x) => x.sA)), sB, surfaces };
   const levels = 1 + K;
 
-  for (const s of solvers) sweeps += s.sweeps;
   return {
     m,
     ground: { sA: sA0, sB: sB0, surfaces: groundSurface.surfaces },
@@ -308,7 +303,7 @@ export function buildOrbitalModel(
     thresholds,
     levels,
     nodeSolves,
-    sweeps,
+    sweeps: work.sweeps,
   };
 
   // ---------------------------------------------------------------------------------------------

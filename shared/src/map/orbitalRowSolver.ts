@@ -29,8 +29,13 @@ export class OrbitalRowSolver {
   readonly mesh: SinhMesh;
   /** |w_m(0; ρ_c)|: the depth per unit λ. */
   readonly depthPerLambda: number;
-  /** Number of Magnus sweeps done (matching functions and zero-energy phases). */
-  sweeps = 0;
+  /**
+   * Number of Magnus sweeps done (matching functions and zero-energy phases), counted in `work`
+   * (shared by the solvers of one build, so the build need not keep every solver alive to sum them).
+   */
+  get sweeps(): number {
+    return this.work.sweeps;
+  }
   /** dF/d ln ε near the root found by the last lnLevel call (a hint for the next node's search). */
   lastSlope = NaN;
   /** dΨ/d ln λ near the root found by the last threshold call (a hint for the next row's search). */
@@ -42,6 +47,7 @@ export class OrbitalRowSolver {
     readonly lambdaRef: number,
     tol: number,
     refine = 1,
+    private readonly work: { sweeps: number } = { sweeps: 0 },
   ) {
     const w = makeScaledPotential(m, rhoC);
     this.mesh = buildMesh(w, { scale: Math.min(rhoC, 1) / 2, c4: W_TAIL_C4, tol }, refine, lambdaRef);
@@ -50,7 +56,7 @@ export class OrbitalRowSolver {
 
   /** Zero-energy phase Ψ(λ) of one parity (number of levels of that parity = ⌊Ψ/π⌋). */
   phase(lambda: number, odd: boolean): number {
-    this.sweeps++;
+    this.work.sweeps++;
     return zeroEnergyPhase(this.mesh, lambda, odd, W_TAIL_C4);
   }
 
@@ -71,7 +77,7 @@ export class OrbitalRowSolver {
     const target = (nu >> 1) * Math.PI;
     const mesh = this.mesh;
     const G = (s: number): number => {
-      this.sweeps++;
+      this.work.sweeps++;
       return pruferMismatch(mesh, lambda, Math.exp(s), odd) - target;
     };
     void G;

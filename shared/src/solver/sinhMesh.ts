@@ -33,6 +33,23 @@ const STRIDE = 8; // R1 R2 R3 P1 P2 P3 maxAbsW(start & Gauss nodes) h
 const TAIL_G = 1e-2;
 const TAIL_STRETCH = 4;
 
+/**
+ * cosh t and sinh t of a mesh position (t ≥ 0) into HYP[0], HYP[1]: from one exponential where
+ * t ≥ 1 (no cancellation to speak of in e^t − e^(−t) there), the library functions below.
+ */
+const HYP = new Float64Array(2);
+function coshSinh(t: number): void {
+  if (t >= 1) {
+    const e = Math.exp(t);
+    const ie = 1 / e;
+    HYP[0] = 0.5 * (e + ie);
+    HYP[1] = 0.5 * (e - ie);
+  } else {
+    HYP[0] = Math.cosh(t);
+    HYP[1] = Math.sinh(t);
+  }
+}
+
 export interface MeshSpec {
   /** w(x), even, → 0 at infinity; evaluated only for x ≥ 0. */
   w: (x: number) => number;
@@ -74,7 +91,7 @@ export class SinhMesh {
       .filter((b) => b > 0 && b < spec.xMax)
       .map((b) => Math.asinh(b / spec.a))
       .sort((p, q) => p - q);
-    const cap = 512;
+    const cap = 256;
     this.step = new Float64Array(cap * STRIDE);
     this.t = new Float64Array(cap + 1);
     this.x = new Float64Array(cap + 1);
@@ -129,7 +146,8 @@ export class SinhMesh {
     const t0 = this.t[k];
     const w0 = this.wNode[k];
     const twoL = 2 * lambdaRef;
-    const d0 = a * Math.cosh(t0);
+    coshSinh(t0);
+    const d0 = a * HYP[0];
     const g0 = d0 * d0 * twoL * Math.abs(w0); // (x')²·2λ|w|: the potential's weight in a unit step
     const stretch = g0 < TAIL_G ? Math.min(TAIL_STRETCH, Math.pow(TAIL_G / g0, 1 / 7)) : 1;
     let h = Math.min(hMax * stretch, cOsc / (d0 * Math.sqrt(twoL * Math.abs(w0)) + 1e-300));
@@ -146,12 +164,15 @@ export class SinhMesh {
       tA = t0 + C1 * h;
       tB = t0 + 0.5 * h;
       tC = t0 + C3 * h;
-      dA = a * Math.cosh(tA);
-      dB = a * Math.cosh(tB);
-      dC = a * Math.cosh(tC);
-      wA = w(a * Math.sinh(tA));
-      wB = w(a * Math.sinh(tB));
-      wC = w(a * Math.sinh(tC));
+      coshSinh(tA);
+      dA = a * HYP[0];
+      wA = w(a * HYP[1]);
+      coshSinh(tB);
+      dB = a * HYP[0];
+      wB = w(a * HYP[1]);
+      coshSinh(tC);
+      dC = a * HYP[0];
+      wC = w(a * HYP[1]);
       this.evaluations += 3;
       const om = Math.max(
         dA * Math.sqrt(twoL * Math.abs(wA)),
@@ -178,7 +199,8 @@ export class SinhMesh {
     st[o + 6] = mx;
     st[o + 7] = h;
     const t1 = t0 + h;
-    const x1 = a * Math.sinh(t1);
+    coshSinh(t1);
+    const x1 = a * HYP[1];
     const w1 = w(x1);
     this.evaluations++;
     this.t[k + 1] = t1;
