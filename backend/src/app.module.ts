@@ -20,6 +20,8 @@ import { PinsModule } from './pins/pins.module';
 import { ViewingLinksModule } from './viewing-links/viewing-links.module';
 import { DemoModule } from './demo/demo.module';
 import { LiveModule } from './live/live.module';
+import { PostgresThrottlerStorage } from './rate-limit/postgres-throttler.storage';
+import { RateLimitModule } from './rate-limit/rate-limit.module';
 
 export interface AppModuleOptions {
   /** Replaces the system clock (tests move time forward with it). */
@@ -41,9 +43,15 @@ export class AppModule implements NestModule {
         MikroOrmModule.forRoot({ ...ormOptions(config.database), registerRequestContext: true }),
         ClockModule.forRoot(options.clock),
         // Applied only where a route says @UseGuards(ThrottlerGuard): sign-in, register, password reset.
-        ThrottlerModule.forRoot({
-          throttlers: [{ name: 'default', ttl: config.auth.rateLimit.windowSeconds * 1000, limit: config.auth.rateLimit.limit }],
-          errorMessage: 'Too many attempts from this address. Wait a minute, then try again.',
+        // Counters live in PostgreSQL so limits hold across server instances (src/rate-limit/).
+        ThrottlerModule.forRootAsync({
+          imports: [RateLimitModule],
+          inject: [PostgresThrottlerStorage],
+          useFactory: (storage: PostgresThrottlerStorage) => ({
+            throttlers: [{ name: 'default', ttl: config.auth.rateLimit.windowSeconds * 1000, limit: config.auth.rateLimit.limit }],
+            errorMessage: 'Too many attempts from this address. Wait a minute, then try again.',
+            storage,
+          }),
         }),
         ...staticSite,
         HealthModule,

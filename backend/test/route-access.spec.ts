@@ -24,6 +24,7 @@ const DELIBERATELY_PUBLIC = new Set([
   'GET /invitations/:token',
   'POST /invitations/:token/register',
   'GET /view/:token',
+  'GET /view/:token/events',
 ]);
 
 interface RouteInfo {

@@ -1,3 +1,4 @@
+import crypto from 'node:crypto';
 import type { INestApplication } from '@nestjs/common';
 import { createApp } from '../src/app.factory';
 import { Clock } from '../src/common/clock';
@@ -29,6 +30,7 @@ export class TestClock extends Clock {
 /**
  * The real application on an ephemeral loopback port, against the test database, with the local
  * mail fake and (unless a test asks for less) rate limits high enough not to get in the way.
+ * Several can run at once against the one database, like server instances behind a load balancer.
  */
 export async function startTestApp(overrides: TestAppOverrides = {}, options: { clock?: Clock; logs?: 'json' | 'silent' } = {}): Promise<TestApp> {
   const base = loadConfig();
@@ -36,6 +38,9 @@ export async function startTestApp(overrides: TestAppOverrides = {}, options: { 
     ...base,
     staticDir: null,
     port: 0,
+    // Rate-limit counters are shared through the database: each app counts on its own unless a test
+    // (two instances sharing a limit) passes the same scope to both.
+    rateLimitScope: crypto.randomUUID(),
     ...overrides,
     auth: { ...base.auth, rateLimit: { limit: 10_000, windowSeconds: 60 }, ...overrides.auth },
     // No background mail retries: tests that need them call InvitationMailRetryService.deliverDue().

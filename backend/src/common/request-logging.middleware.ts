@@ -37,7 +37,8 @@ export class RequestLoggingMiddleware implements NestMiddleware {
 
   use(req: Request, res: Response, next: NextFunction): void {
     const started = process.hrtime.bigint();
-    res.on('finish', () => {
+    // 'close' rather than 'finish': a live stream (server-sent events) that the client ends never finishes.
+    res.on('close', () => {
       const ms = Number(process.hrtime.bigint() - started) / 1e6;
       const user = (req as Request & { user?: { id?: string } }).user?.id;
       this.logger.log({

@@ -12,6 +12,8 @@ const STREAM_FORMAT =
   'A reconnecting client sends the last id back (Last-Event-ID) and first receives every later event of the map, in id order. ' +
   'Events are kept 7 days (FIELDBOUND_EVENT_RETENTION_DAYS). Types: MapLiveEvent / SharedLiveEvent in shared/src/api/live.ts.';
 
+const EXAMPLE = 'id: 42\nevent: map\ndata: {"id":"42","mapId":"…","at":"…","kind":"pin.deleted","pinId":"…"}\n\n: heartbeat\n\n';
+
 const LastEventIdDocs = () =>
   applyDecorators(
     ApiHeader({ name: 'Last-Event-ID', required: false, description: 'Id of the last event received; later events are sent first.' }),
@@ -28,7 +30,7 @@ export class LiveController {
   @ApiBearerAuth()
   @ApiProduces('text/event-stream')
   @ApiOperation({ summary: "A map's live updates: pins created, changed, deleted and replied to, and map saves (viewers and up)", description: STREAM_FORMAT })
-  @ApiOkResponse({ description: 'An open event stream of MapLiveEvent.' })
+  @ApiOkResponse({ description: 'An open event stream of MapLiveEvent.', content: { 'text/event-stream': { schema: { type: 'string', example: EXAMPLE } } } })
   @LastEventIdDocs()
   async mapEvents(
     @Param('mapId') mapId: string,
@@ -50,7 +52,7 @@ export class LiveController {
     summary: "Live updates behind a viewing link: map saves, and pins without authors or threads when the link shows pins. No sign-in; 404 unknown or revoked, 410 expired.",
     description: STREAM_FORMAT,
   })
-  @ApiOkResponse({ description: 'An open event stream of SharedLiveEvent.' })
+  @ApiOkResponse({ description: 'An open event stream of SharedLiveEvent.', content: { 'text/event-stream': { schema: { type: 'string', example: EXAMPLE } } } })
   @LastEventIdDocs()
   async linkEvents(
     @Param('token') token: string,

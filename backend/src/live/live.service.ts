@@ -55,7 +55,7 @@ export class LiveService {
       shared: null,
       lastEventId,
       endsAt: exp === null ? null : new Date(exp * 1000),
-      stillAllowed: async () => (await this.em.getConnection().execute(sql, params)).length > 0,
+      stillAllowed: async () => (await this.em.execute(sql, params)).length > 0,
     });
   }
 
@@ -73,7 +73,7 @@ export class LiveService {
       shared: { includePins: link.includePins },
       lastEventId,
       endsAt: link.expiresAt,
-      stillAllowed: async () => (await this.em.getConnection().execute(sql, [link.id, this.clock.now()])).length > 0,
+      stillAllowed: async () => (await this.em.execute(sql, [link.id, this.clock.now()])).length > 0,
     });
   }
 }

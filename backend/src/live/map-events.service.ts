@@ -46,22 +46,20 @@ export class MapEventsService {
   async flushAndRecord(em: EntityManager, mapId: string, describe: (tx: EntityManager) => MapEventDraft | Promise<MapEventDraft>): Promise<void> {
     await em.transactional(async (tx) => {
       await tx.flush();
-      const ctx = tx.getTransactionContext();
-      const connection = tx.getConnection();
-      await connection.execute('select pg_advisory_xact_lock(?, hashtext(?))', [MAP_EVENT_LOCK_CLASS, mapId], 'get', ctx);
+      // em.execute runs in the transaction and turns driver errors into MikroORM's (so an outage answers 503).
+      await tx.execute('select pg_advisory_xact_lock(?, hashtext(?))', [MAP_EVENT_LOCK_CLASS, mapId], 'get');
       const draft = await describe(tx);
-      await connection.execute(
+      await tx.execute(
         'insert into map_events (map_id, kind, payload, actor_id, created_at) values (?, ?, ?::jsonb, ?, ?)',
         [mapId, draft.kind, JSON.stringify(draft.data), draft.actorId, this.clock.now()],
         'run',
-        ctx,
       );
     });
   }
 
   /** Events of one map with an id above `afterId`, oldest first, at most `limit`. */
   async after(mapId: string, afterId: bigint, limit = 500): Promise<MapLiveEvent[]> {
-    const rows = await this.em.getConnection().execute<MapEventRow[]>(
+    const rows = await this.em.execute<MapEventRow[]>(
       `${SELECT_EVENTS} where e.map_id = ? and e.id > ? order by e.id limit ?`,
       [mapId, afterId.toString(), limit],
     );
@@ -70,14 +68,14 @@ export class MapEventsService {
 
   /** The id of the map's newest committed event (0 when it has none). */
   async latestId(mapId: string): Promise<bigint> {
-    const [row] = await this.em.getConnection().execute<{ id: string | null }[]>('select max(id)::text as id from map_events where map_id = ?', [mapId]);
+    const [row] = await this.em.execute<{ id: string | null }[]>('select max(id)::text as id from map_events where map_id = ?', [mapId]);
     return BigInt(row?.id ?? 0);
   }
 
   /** Removes events older than `days` days; returns how many. */
   async prune(days: number): Promise<number> {
     const cutoff = new Date(this.clock.now().getTime() - days * 86_400_000);
-    const result = await this.em.getConnection().execute<{ affectedRows: number }>('delete from map_events where created_at < ?', [cutoff], 'run');
+    const result = await this.em.execute<{ affectedRows: number }>('delete from map_events where created_at < ?', [cutoff], 'run');
     return result.affectedRows ?? 0;
   }
 }
