@@ -218,7 +218,6 @@ export function useLiveSharedMap(token: string | undefined, enabled: boolean): L
     return connectLive({
       path: `/view/${encodeURIComponent(token)}/events`,
       auth: false,
-      onStatus: setStatus,
       // The first open follows the page's own load closely; a later open that cannot resume (no event seen) may have
       // missed changes, so the view is read again. Not on the first open: each read counts as a view of the link.
       onOpen: (resumed) => {
@@ -226,6 +225,11 @@ export function useLiveSharedMap(token: string | undefined, enabled: boolean): L
         opened = true;
       },
       onEvent: (raw) => applySharedEvent(queryClient, token, raw as SharedLiveEvent),
+      onStatus: (s) => {
+        setStatus(s);
+        // Refused (revoked or expired while open): read the link again so the page says why it stopped working.
+        if (s === 'closed') void queryClient.invalidateQueries({ queryKey: viewingLinkKeys.shared(token), exact: true });
+      },
     });
   }, [token, enabled, queryClient]);
   return status;
