@@ -21,6 +21,12 @@ export interface CellBindings {
   levelsPerOrbital: number;
   /** B (a.u.) per row. */
   fieldsAu: Float64Array;
+  /**
+   * Optional: levels per orbital and cell (`m · cellCount + c`), as in BindingMapResult. With it the
+   * loop reads only levels ν < count (every state with ε > 0 is among them: the levels are stored from
+   * the deepest, and those below the floor are stored as 0 and not counted).
+   */
+  counts?: Uint16Array;
 }
 
 /** Output buffers of {@link classifyCells} (reusable across calls). */
@@ -76,30 +82,42 @@ export function classifyCells(map: CellBindings, settings: MotionSettings, out: 
   const stride = L * cellCount;
   const fr = out.fractions;
   out.survivors.fill(0);
+  // defaults for every slot without a state (most slots of a real map: all levels of all orbitals
+  // are stored), written in bulk; the loop below only touches the states that exist
+  out.stateClass.fill(STATE_CLASS.NONE);
+  out.widthHartree.fill(NaN);
+  out.flags.fill(WIDTH_FLAG.NO_STATE);
+  if (fr) {
+    fr.fill(0);
+    for (let k = 2; k < fr.length; k += 3) fr[k] = 1;
+  }
+  // per-row quantities
+  const rowSqrtB = new Float64Array(nField);
+  const rowF = new Float64Array(nField);
+  const rowEPerp = new Float64Array(nField);
   for (let j = 0; j < nField; j++) {
     const B = fieldsAu[j]!;
     const ePerp = thermal ? settings.kT : transverseEnergyAt(settings, B);
-    const omega = B / M;
-    const sqrtB = Math.sqrt(B);
-    const F = B * Math.sqrt((2 * ePerp) / M);
-    const c0 = j * nAlpha;
-    for (let m = 0; m <= mMax; m++) {
-      for (let nu = 0; nu < L; nu++) {
-        const rowBase = (m * L + nu) * cellCount;
-        for (let c = c0; c < c0 + nAlpha; c++) {
-          const idx = rowBase + c;
+    rowEPerp[j] = ePerp;
+    rowSqrtB[j] = Math.sqrt(B);
+    rowF[j] = B * Math.sqrt((2 * ePerp) / M);
+  }
+  const counts = map.counts && map.counts.length === (mMax + 1) * cellCount ? map.counts : null;
+  for (let m = 0; m <= mMax; m++) {
+    for (let j = 0; j < nField; j++) {
+      const B = fieldsAu[j]!;
+      const omega = B / M;
+      const sqrtB = rowSqrtB[j]!;
+      const F = rowF[j]!;
+      const ePerp = rowEPerp[j]!;
+      const c0 = j * nAlpha;
+      const c1 = c0 + nAlpha;
+      for (let c = c0; c < c1; c++) {
+        const nMax = counts ? Math.min(counts[m * cellCount + c]!, L) : L;
+        for (let nu = 0; nu < nMax; nu++) {
+          const idx = (m * L + nu) * cellCount + c;
           const e = eps[idx]!;
-          if (!(e > 0)) {
-            out.stateClass[idx] = STATE_CLASS.NONE;
-            out.widthHartree[idx] = NaN;
-            out.flags[idx] = WIDTH_FLAG.NO_STATE;
-            if (fr) {
-              fr[3 * idx] = 0;
-              fr[3 * idx + 1] = 0;
-              fr[3 * idx + 2] = 1;
-            }
-            continue;
-          }
+          if (!(e > 0)) continue;
           const p = localShapeNumberStrided(eps, nu * cellCount + c, stride, mMax, m);
           const bits = stateWidthCore(e, m, p, sqrtB, F, ePerp, omega, w);
           const g = w[0]!;
