@@ -10,6 +10,8 @@ import { MapEventsService, toSharedLiveEvent } from './map-events.service';
 const MAX_BUFFERED_BYTES = 256 * 1024;
 /** Events read per query while catching up. */
 const PAGE = 500;
+/** Wait before reading a map's new events again after a failed read, in ms. */
+const READ_RETRY_MS = 1000;
 /** Reconnection delay the browser is told to use (the SSE `retry:` field), in ms. */
 const RETRY_MS = 2000;
 
@@ -105,6 +107,11 @@ export class LiveHubService implements OnModuleDestroy {
     const sub: Subscriber = { spec, res, lastSentId: spec.lastEventId ?? latest, live: false, pending: [], closed: false, timers: [] };
     this.register(sub, latest);
     res.on('close', () => this.unregister(sub));
+    // The client may have gone while the first query ran: then 'close' has already fired.
+    if (res.destroyed || req.socket.destroyed) {
+      this.unregister(sub);
+      return;
+    }
     this.startTimers(sub);
 
     try {
@@ -165,8 +172,11 @@ export class LiveHubService implements OnModuleDestroy {
         }
       } while (channel.pullAgain);
     } catch (error) {
-      // The database is away: the listener reconnects and pulls again.
+      // The database is away: try again shortly (the listener also pulls every map when it reconnects).
       this.logger.warn({ event: 'live.read_failed', map: channel.mapId, error: (error as Error).message });
+      setTimeout(() => {
+        if (this.channels.get(channel.mapId) === channel) void this.pull(channel);
+      }, READ_RETRY_MS).unref();
     } finally {
       channel.pulling = false;
     }
