@@ -297,3 +297,16 @@ describe('live map events: OpenAPI', () => {
     }
   });
 });
+
+describe('live map events: shutdown', () => {
+  it('closing the application ends its open streams instead of waiting for them', async () => {
+    const own = await startTestApp();
+    const ownCast = await roleCast(own);
+    const ownMap = (await api(own)('POST', `/teams/${ownCast.teamId}/maps`, { as: ownCast.owner, json: { title: 'Closing', setup: defaultSetup() } })).body.id;
+    const s = await openStream(`${own.baseUrl}/maps/${ownMap}/events`, { token: ownCast.viewer.token });
+    expect(s.status).toBe(200);
+    await own.close();
+    await s.ended;
+    expect(own.app.get(LiveHubService).streamCount).toBe(0);
+  });
+});
