@@ -48,6 +48,15 @@ function stridedPair(eps: Float64Array, offset: number, stride: number, mMax: nu
  * per-cell loop): orbital j of the state sits at `eps[offset + j·stride]`, j ≤ mMax.
  */
 export function localShapeNumberStrided(eps: Float64Array, offset: number, stride: number, mMax: number, m: number): number {
+  // fast path: the pair (m, m + 2) exists (almost every state of a map)
+  if (m + 2 <= mMax && m < 256) {
+    const a = eps[offset + m * stride]!;
+    const b = eps[offset + (m + 2) * stride]!;
+    if (a > 0 && b > 0) {
+      const q = Math.log(a / b) * INV_LOG_RATIO_2[m]!;
+      if (q > 0) return q;
+    }
+  }
   let p = stridedPair(eps, offset, stride, mMax, m, m + 2);
   if (p !== p) p = stridedPair(eps, offset, stride, mMax, m - 1, m + 1);
   if (p !== p) p = stridedPair(eps, offset, stride, mMax, m, m + 1);
