@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { EngineInputError } from '../errors.js';
 import { expectClose } from '../../test/expectClose.js';
 import { countBoundStates, createBoundStateSolver, solveBoundStates } from './solveBoundStates.js';
+import { magnusPropagator } from './magnusStep.js';
 import { thresholdCouplings } from './thresholdCouplings.js';
 
 const PT_SOURCE =
@@ -284,6 +285,34 @@ describe('createBoundStateSolver: one sampled mesh for the family c·(−1/cosh�
     const second = solver.solve(5, { errorEstimate: false });
     expect(first.potentialEvaluations).toBeGreaterThan(0);
     expect(second.potentialEvaluations).toBe(0);
+  });
+});
+
+describe('magnusPropagator: the step exponential of a traceless 2×2 matrix', () => {
+  // With R2 = R3 = S2 = S3 = 0 the step exponent is Ω = [[0, R1], [S1, 0]] (all commutators vanish), and
+  // Ω² = δ·I with δ = R1·S1, so exp(Ω) = cosh√δ·I + (sinh√δ/√δ)·Ω exactly (cos/sin for δ < 0): the
+  // closed form of the exponential of a 2×2 matrix with zero trace (Cayley–Hamilton; e.g. Blanes, Casas,
+  // Oteo, Ros, Phys. Rep. 470, 151 (2009), §5). Checked across the three evaluation routes of the step —
+  // the Taylor polynomial for |δ| < 1, one exponential for δ ≥ 1, cos/sin for δ ≤ −1 — and at their seams.
+  it('equals cosh√δ, sinh√δ/√δ (cos, sin for δ < 0) within 2e-15 relative for δ = −60 … 60, and has determinant 1', () => {
+    const SRC = 'exp of a traceless 2×2 matrix: cosh√δ·I + (sinh√δ/√δ)·Ω (Cayley–Hamilton)';
+    const out = new Float64Array(4);
+    const deltas = [-60, -9, -1.0000001, -1, -0.9999999, -0.3, -1e-3, -1e-9, 0, 1e-9, 1e-3, 0.3, 0.9999999, 1, 1.0000001, 4, 30, 60];
+    for (const d of deltas) {
+      for (const R1 of [0.7, 3.1]) {
+        const S1 = d / R1;
+        magnusPropagator(R1, 0, 0, S1, 0, 0, 1, out);
+        const mu = Math.sqrt(Math.abs(d));
+        const c = d > 0 ? Math.cosh(mu) : d < 0 ? Math.cos(mu) : 1;
+        const sc = d > 0 ? Math.sinh(mu) / mu : d < 0 ? Math.sin(mu) / mu : 1;
+        const inputs = { delta: d, R1, S1 };
+        expectClose(out[0], c, { rel: 2e-15, abs: 1e-300, inputs, source: SRC });
+        expectClose(out[3], c, { rel: 2e-15, abs: 1e-300, inputs, source: SRC });
+        expectClose(out[1], R1 * sc, { rel: 2e-15, abs: 1e-300, inputs, source: SRC });
+        expectClose(out[2], S1 * sc, { rel: 2e-15, abs: 1e-300, inputs, source: SRC });
+        expectClose(out[0] * out[3] - out[1] * out[2], 1, { rel: 1e-13 * Math.max(1, c * c), inputs, source: 'det exp(Ω) = e^(tr Ω) = 1' });
+      }
+    }
   });
 });
 
