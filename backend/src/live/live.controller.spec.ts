@@ -1,9 +1,11 @@
+import crypto from 'node:crypto';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { EntityManager } from '@mikro-orm/postgresql';
 import { defaultSetup, type MapLiveEvent, type SharedLiveEvent } from '@fieldbound/shared';
 import { startTestApp, TestClock, type TestApp } from '../../test/test-app';
 import { addMember, api, type Person, registerPerson, roleCast, type RoleCast } from '../../test/team-fixtures';
 import { data, openStream, type SseStream } from '../../test/sse';
+import { VIEW_RATE_LIMIT } from '../viewing-links/viewing-link-throttler.guard';
 import { LiveHubService } from './live-hub.service';
 import { LISTENER_APPLICATION_NAME, LiveListenerService } from './live-listener.service';
 import { LiveMaintenanceService } from './live-maintenance.service';
@@ -242,6 +244,21 @@ describe('live map events: viewing links', () => {
     const expired = await stream(`/view/${expiring.token}/events`);
     expect(expired.status).toBe(410);
     expect(expired.body.code).toBe('viewing_link_expired');
+  });
+});
+
+describe('live map events: guessing link tokens', () => {
+  it(`answers 429 after ${VIEW_RATE_LIMIT.limit} stream requests a minute from one address, unknown tokens included`, async () => {
+    // Its own application: the counters of the other tests' link streams stay out of it.
+    const own = await startTestApp();
+    try {
+      const statuses: number[] = [];
+      for (let i = 0; i <= VIEW_RATE_LIMIT.limit; i++) statuses.push((await fetch(`${own.baseUrl}/view/${crypto.randomBytes(32).toString('base64url')}/events`)).status);
+      expect(statuses.slice(0, VIEW_RATE_LIMIT.limit).every((s) => s === 404)).toBe(true);
+      expect(statuses[VIEW_RATE_LIMIT.limit]).toBe(429);
+    } finally {
+      await own.close();
+    }
   });
 });
 
