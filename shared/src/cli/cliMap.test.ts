@@ -20,7 +20,7 @@ import type { MapSetup } from '../setup/mapSetup.js';
 import { ENGINE_VERSION } from '../version.js';
 import { assembleBlocks, rowBlocks, shapeOfModel } from './assembleBlocks.js';
 import { main } from './main.js';
-import { checkOutputSize, parseMapArgs } from './mapCommand.js';
+import { checkOutputSize, parseMapArgs, writeExport } from './mapCommand.js';
 
 const shared = fileURLToPath(new URL('../..', import.meta.url));
 const entry = fileURLToPath(new URL('./run.ts', import.meta.url));
@@ -157,6 +157,26 @@ describe('fieldbound map: bad arguments and input (exit code 2, nothing written)
     expect(csv.ok).toBe(false);
     if (!csv.ok) expect(csv.message).toMatch(/CSV export of this map would be about .* above the limit of 1\.0 kB\. Use a coarser grid/);
     expect(checkOutputSize('json', { setup, binding, phase, date: 'd' }).ok).toBe(true);
+  });
+
+  it('writing: the file appears only when complete; an abort while writing (Ctrl-C) leaves neither the file nor its temporary', async () => {
+    const out = join(dir, 'w.csv');
+    const many = function* (): Generator<string> {
+      for (let k = 0; k < 200; k++) yield `line ${k}\n`;
+    };
+    expect(await writeExport(out, many())).toBe([...many()].join('').length);
+    expect(readFileSync(out, 'utf8')).toBe([...many()].join(''));
+    const stopped = join(dir, 'stopped.csv');
+    const controller = new AbortController();
+    let n = 0;
+    const aborting = function* (): Generator<string> {
+      for (let k = 0; k < 200; k++) {
+        if (++n === 50) controller.abort();
+        yield `line ${k}\n`;
+      }
+    };
+    expect(await writeExport(stopped, aborting(), controller.signal)).toBeNull();
+    expect(readdirSync(dir).filter((f) => f.startsWith('stopped'))).toEqual([]);
   });
 
   it('--threads defaults to the cores given and --date is optional', () => {

@@ -113,24 +113,32 @@ export function checkOutputSize(format: 'csv' | 'json', input: { setup: MapSetup
     : estimateMapJson({ ...input, engineVersion: ENGINE_VERSION }, { maxBytes });
 }
 
-/** Writes the export to a temporary file next to `out` and renames it, so a cancelled or failed run leaves no half-written file. */
-export function writeExport(out: string, chunks: Iterable<string>): number {
+/**
+ * Writes the export to a temporary file next to `out` and renames it at the end, so a cancelled or
+ * failed run leaves no half-written file. Yields to the event loop every few chunks so that Ctrl-C
+ * (an aborted `signal`) is seen while writing: the temporary file is then removed and the call
+ * resolves to null. Resolves to the number of bytes written otherwise.
+ */
+export async function writeExport(out: string, chunks: Iterable<string>, signal?: AbortSignal): Promise<number | null> {
   const tmp = `${out}.partial-${process.pid}`;
   let bytes = 0;
   const fd = openSync(tmp, 'w');
+  let ok = false;
   try {
+    let n = 0;
     for (const c of chunks) {
       const b = Buffer.from(c, 'utf8');
       let off = 0;
       while (off < b.length) off += writeSync(fd, b, off);
       bytes += b.length;
+      if (++n % 32 === 0) await new Promise((r) => setImmediate(r));
+      if (signal?.aborted) return null;
     }
-  } catch (e) {
+    ok = true;
+  } finally {
     closeSync(fd);
-    rmSync(tmp, { force: true });
-    throw e;
+    if (!ok) rmSync(tmp, { force: true });
   }
-  closeSync(fd);
   renameSync(tmp, out);
   return bytes;
 }
@@ -144,29 +152,39 @@ export async function mapCommand(a: MapArgs, io: CliIo): Promise<number> {
   const setup = readSetupFile(a.setupPath);
   const controller = new AbortController();
   const onSigint = (): void => controller.abort();
-  process.once('SIGINT', onSigint);
-  const progress = a.quiet ? null : new ProgressReporter(process.stderr);
-  let result: { binding: BindingMapResult; phase: PhaseMapResult };
-  const t0 = Date.now();
+  process.on('SIGINT', onSigint);
   try {
-    result = await computeClassifiedMap(setup, { threads: a.threads, signal: controller.signal, onProgress: (p) => progress?.update(p) });
-  } catch (e) {
+    const progress = a.quiet ? null : new ProgressReporter(process.stderr);
+    let result: { binding: BindingMapResult; phase: PhaseMapResult };
+    const t0 = Date.now();
+    try {
+      result = await computeClassifiedMap(setup, { threads: a.threads, signal: controller.signal, onProgress: (p) => progress?.update(p) });
+    } catch (e) {
+      progress?.finish();
+      if ((e as Error).name === 'AbortError') {
+        io.err('fieldbound map: cancelled; the workers are stopped and nothing was written');
+        return 130;
+      }
+      throw e;
+    }
     progress?.finish();
-    if ((e as Error).name === 'AbortError') {
-      io.err('fieldbound map: cancelled; the workers are stopped and nothing was written');
+    const date = a.date ?? new Date().toISOString();
+    const input = { setup, ...result, date };
+    const size = checkOutputSize(a.format, input);
+    if (!size.ok) throw new CliInputError(`--out ${basename(a.out)}: ${size.message}`);
+    const chunks = a.format === 'csv' ? mapCsvChunks(input) : mapJsonChunks({ ...input, engineVersion: ENGINE_VERSION });
+    const bytes = await writeExport(a.out, chunks, controller.signal);
+    if (bytes === null) {
+      io.err('fieldbound map: cancelled while writing; nothing was written');
       return 130;
     }
-    throw e;
+    return report(a, setup, result, bytes, t0, io);
   } finally {
     process.removeListener('SIGINT', onSigint);
   }
-  progress?.finish();
-  const date = a.date ?? new Date().toISOString();
-  const input = { setup, ...result, date };
-  const size = checkOutputSize(a.format, input);
-  if (!size.ok) throw new CliInputError(`--out ${basename(a.out)}: ${size.message}`);
-  const chunks = a.format === 'csv' ? mapCsvChunks(input) : mapJsonChunks({ ...input, engineVersion: ENGINE_VERSION });
-  const bytes = writeExport(a.out, chunks);
+}
+
+function report(a: MapArgs, setup: MapSetup, result: { binding: BindingMapResult; phase: PhaseMapResult }, bytes: number, t0: number, io: CliIo): number {
   const cells = result.binding.cellCount;
   let survivors = 0;
   for (let c = 0; c < cells; c++) if (result.phase.survivors[c]! > 0) survivors++;
