@@ -3,7 +3,7 @@ import { App, Button, Space, Spin, Tooltip, Typography } from 'antd';
 import { ArrowLeftOutlined, DesktopOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import { canonicalJson, setupFingerprint, type MapDetail, type MapSetup, type SpeciesEntry } from '@fieldbound/shared';
+import { bindingInputsKey, canonicalJson, setupFingerprint, type MapDetail, type MapSetup, type SpeciesEntry } from '@fieldbound/shared';
 import { conflictOf, storeMap, useMap, usePutSummary, usePutThumbnail, useRestoreVersion, useSaveAsCopy, useUpdateMap, type UpdateMapVars } from '../api/maps';
 import { useTeamSpecies } from '../api/species';
 import { useCurrentTeam } from '../state/currentTeam';
@@ -138,6 +138,10 @@ function MapEditor({ map }: { map: MapDetail }) {
 
   const onSaveSetup = useCallback((setup: MapSetup) => save({ setup }), [save]);
 
+  // Exports describe the figure as drawn: the current setup while it shares the computed binding map (species, field
+  // bands, display and contours change without recomputing), else the setup that was computed.
+  const exportSetup = computed && current && bindingInputsKey(current) === bindingInputsKey(computed.setup) ? current : (computed?.setup ?? current ?? map.setup);
+
   // Result summary and thumbnail: once per computed setup that is the saved one (editors only).
   const sent = useRef(new Set<string>());
   useEffect(() => {
@@ -241,7 +245,7 @@ function MapEditor({ map }: { map: MapDetail }) {
             </Button>
           )}
           <ExportMenu
-            setup={computed?.setup ?? current ?? map.setup}
+            setup={exportSetup}
             bindingMap={computed?.result ?? null}
             title={map.title}
             getFigureSvg={() => explorerBox.current?.querySelector<SVGSVGElement>('.map-view svg[role="img"]') ?? null}
