@@ -10,7 +10,8 @@ const unique = () => Math.random().toString(36).slice(2, 10);
 const PASSWORD = 'field-induced anions';
 
 /** What the app adds to `window` when opened with ?faults. */
-type FaultsWindow = Window & { fieldboundFaults?: { killEngineWorkers(): number } };
+// (The e2e project has no DOM typings: the page's globals are described here.)
+type FaultsWindow = { fieldboundFaults?: { killEngineWorkers(): number }; document: { querySelector(selector: string): unknown } };
 
 async function registerWithTeam(request: APIRequestContext, label: string): Promise<string> {
   const id = unique();
@@ -53,9 +54,10 @@ test('the engine worker killed mid-computation: an error with Retry, Retry compu
 
   // Kill the workers while the map computes (checked in the same task as the kill: the progress is still shown).
   await expect(page.getByRole('status', { name: 'Computation progress' })).toBeVisible({ timeout: 120_000 });
-  const killed = await page.evaluate(() =>
-    document.querySelector('[aria-label="Computation progress"]') ? ((window as FaultsWindow).fieldboundFaults?.killEngineWorkers() ?? -1) : -2,
-  );
+  const killed = await page.evaluate(() => {
+    const w = globalThis as unknown as FaultsWindow;
+    return w.document.querySelector('[aria-label="Computation progress"]') ? (w.fieldboundFaults?.killEngineWorkers() ?? -1) : -2;
+  });
   expect(killed, 'engine workers killed while the progress was shown').toBeGreaterThan(0);
 
   const alert = page.getByRole('alert').filter({ hasText: 'Could not compute the map' });
@@ -87,5 +89,5 @@ test('without the ?faults switch the page offers no way to kill workers', async 
   const mapId = await createMapFromPreset(page, `Plain ${unique()}`, 'Pulsed-field facilities');
   await page.goto(`/maps/${mapId}`);
   await expect(page.getByTestId('save-state')).toContainText('Saved · version 1', { timeout: 60_000 });
-  expect(await page.evaluate(() => typeof (window as FaultsWindow).fieldboundFaults)).toBe('undefined');
+  expect(await page.evaluate(() => typeof (globalThis as unknown as FaultsWindow).fieldboundFaults)).toBe('undefined');
 });

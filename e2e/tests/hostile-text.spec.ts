@@ -33,7 +33,7 @@ function watch(page: Page) {
   });
   return async () => {
     expect(dialogs).toEqual([]);
-    expect(await page.evaluate(() => (window as Window & { __fieldboundPwned?: string }).__fieldboundPwned ?? null)).toBeNull();
+    expect(await page.evaluate(() => (globalThis as { __fieldboundPwned?: string }).__fieldboundPwned ?? null)).toBeNull();
     // No element the payloads would have created exists in the document.
     expect(await page.locator('img[src="x"], svg[onload], a[href^="javascript:"]').count()).toBe(0);
   };
