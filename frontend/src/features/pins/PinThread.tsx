@@ -130,7 +130,7 @@ export function PinThread({ mapId, pinId, canEdit, regionText, notice, onAcknowl
           }
         />
       )}
-      {p.body ? <PlainText text={p.body} /> : <Typography.Text type="secondary">No description.</Typography.Text>}
+      <div style={{ marginTop: 4 }}>{p.body ? <PlainText text={p.body} /> : <Typography.Text type="secondary">No description.</Typography.Text>}</div>
 
       {canEdit && (
         <Space wrap style={{ margin: '12px 0' }}>
