@@ -15,7 +15,7 @@ import { chromium, type Page } from '@playwright/test';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const repoRoot = path.resolve(here, '..', '..');
-const PORT = Number(process.env.FIELDBOUND_BENCH_PORT ?? 3160);
+const PORT = Number(process.env.FIELDBOUND_BENCH_PORT ?? 3171);
 const DB = process.env.FIELDBOUND_BENCH_DB ?? 'fieldbound_explorer_bench_test';
 const BASE = `http://127.0.0.1:${PORT}`;
 const RUNS = Number(process.env.FIELDBOUND_BENCH_RUNS ?? 3);
@@ -87,8 +87,11 @@ async function engineInNode(setup: Awaited<ReturnType<typeof benchSetup>>) {
 }
 
 async function startServer(): Promise<{ server: ChildProcess; stopDatabase: () => void }> {
-  const build = await import('../../scripts/lib/build.mjs');
-  build.buildIfStale();
+  // The shared build is rebuilt when sources are newer (FIELDBOUND_BENCH_NO_BUILD=1 measures the build as it is).
+  if (process.env.FIELDBOUND_BENCH_NO_BUILD !== '1') {
+    const build = await import('../../scripts/lib/build.mjs');
+    build.buildIfStale();
+  }
   const { LocalCluster } = await import('../../scripts/lib/postgres.mjs');
   const cluster = new LocalCluster();
   const started = await cluster.start();

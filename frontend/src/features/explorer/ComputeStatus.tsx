@@ -2,7 +2,7 @@ import { memo } from 'react';
 import { Alert, Button, Progress, Space, Typography } from 'antd';
 import { palette } from '../../theme/palette';
 import { formatScientific } from '../map-render/formatNumber';
-import type { MapComputation } from './hooks/useMapComputation';
+import { useProgress, type MapComputation, type ProgressStore } from './hooks/useMapComputation';
 
 function duration(ms: number): string {
   if (ms < 1000) return `${Math.max(0, Math.round(ms / 100) / 10)} s`;
@@ -16,10 +16,13 @@ export interface ComputeStatusProps {
   onRetry: () => void;
   /** What is being computed, e.g. "the map" or "the zoomed window". */
   what: string;
+  /** Live progress (the computation's store); without it `state.progress` is shown. */
+  progress?: ProgressStore | null;
 }
 
 /** Progress (cells done, time left, Cancel) while computing; a clear message with Retry when it failed. */
-export const ComputeStatus = memo(function ComputeStatus({ state, onCancel, onRetry, what }: ComputeStatusProps) {
+export const ComputeStatus = memo(function ComputeStatus({ state, onCancel, onRetry, what, progress }: ComputeStatusProps) {
+  const live = useProgress(progress);
   if (state.status === 'error' && state.error) {
     const cancelled = state.error.kind === 'cancelled';
     return (
@@ -47,7 +50,7 @@ export const ComputeStatus = memo(function ComputeStatus({ state, onCancel, onRe
     );
   }
   if (state.status !== 'computing') return null;
-  const p = state.progress;
+  const p = progress ? live : state.progress;
   const percent = p && p.total > 0 ? Math.floor((100 * p.done) / p.total) : 0;
   return (
     <div role="status" aria-label="Computation progress" style={{ background: 'rgba(255,255,255,0.96)', border: `1px solid ${palette.unbound}`, borderRadius: 6, padding: '6px 12px', minWidth: 300, boxShadow: '0 2px 8px rgba(43,45,66,0.12)' }}>

@@ -23,7 +23,7 @@ describe('ExplorerPage when the engine worker fails', () => {
       </MemoryRouter>,
     );
     expect(await screen.findByText('Could not compute the map', {}, { timeout: 10_000 })).toBeTruthy();
-    expect(screen.getByText('The engine worker stopped unexpectedly: Uncaught RangeError: Maximum call stack size exceeded.')).toBeTruthy();
+    expect(screen.getByText(/^The engine worker stopped unexpectedly: Uncaught RangeError: Maximum call stack size exceeded\. Retry starts the engine afresh/)).toBeTruthy();
     expect(screen.queryByRole('status', { name: 'Computation progress' })).toBeNull();
 
     broken = false;

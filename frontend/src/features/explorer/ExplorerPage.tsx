@@ -145,7 +145,7 @@ export function ExplorerPage({
     const out: MapLayerInput[] = [];
     const add = (key: string, g: LayerGeometry) => {
       if (g.geometry && g.forResult && g.forSetup && g.forResult.nAlpha === g.forSetup.grid.nAlpha && g.forResult.nField === g.forSetup.grid.nField) {
-        out.push({ key, result: g.forResult, setup: g.forSetup, geometry: g.geometry });
+        out.push({ key, result: g.forResult, setup: g.forSetup, geometry: g.geometry, phase: g.forPhase });
       }
     };
     add('base', baseGeometry);
@@ -202,7 +202,7 @@ export function ExplorerPage({
       const fieldAu = teslaToAtomic(tesla as Tesla) as number;
       for (const layer of [...layers].reverse()) {
         const axes = gridAxesOf(layer.result, layer.setup);
-        const text = readoutAt(layer.result, axes.alpha, axes.field, alphaAu, fieldAu, shown, applied.display.energyUnit);
+        const text = readoutAt(layer.result, axes.alpha, axes.field, alphaAu, fieldAu, shown, applied.display.energyUnit, layer.phase ?? null);
         if (text) return text;
       }
       return null;
@@ -211,6 +211,9 @@ export function ExplorerPage({
   );
 
   const onProbe = useCallback((p: ProbePoint) => setProbe(roundProbe(p)), []);
+  // Stable while the setup is unchanged, so progress renders of the page never re-render the setup form.
+  const validSetup = check.valid;
+  const onSaveValid = useMemo(() => (onSaveSetup && validSetup ? () => onSaveSetup(validSetup) : undefined), [onSaveSetup, validSetup]);
   const species = useMemo(() => speciesCatalogue.filter((s) => applied.species.includes(s.name)), [speciesCatalogue, applied.species]);
   // One choice per atom (the catalogue lists an atom under its name and its symbol; the shorter one is stored).
   const speciesOptions = useMemo(() => {
@@ -238,7 +241,7 @@ export function ExplorerPage({
               <Button type="text" size="small" aria-label="Hide the setup" icon={<MenuFoldOutlined />} onClick={() => setPanelOpen(false)} />
             </Tooltip>
           </Space>
-          <SetupPanel draft={draft} issues={check.issues} onChange={onDraftChange} onCompute={onCompute} needsCompute={check.needsCompute} onSave={onSaveSetup && check.valid ? () => onSaveSetup(check.valid!) : undefined} saveLabel={saveLabel} speciesOptions={speciesOptions.length ? speciesOptions : undefined} />
+          <SetupPanel draft={draft} issues={check.issues} onChange={onDraftChange} onCompute={onCompute} needsCompute={check.needsCompute} onSave={onSaveValid} saveLabel={saveLabel} speciesOptions={speciesOptions.length ? speciesOptions : undefined} />
         </aside>
       )}
       <main style={{ flex: 1, minWidth: 0, display: 'flex', flexDirection: 'column' }}>
@@ -270,7 +273,7 @@ export function ExplorerPage({
           <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={onProbe} species={species} overlay={mapOverlay} />
           <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={motionApplied} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} />
           <div style={{ position: 'absolute', top: 12, left: '50%', transform: 'translateX(-50%)', display: 'flex', flexDirection: 'column', gap: 8, alignItems: 'center' }}>
-            <ComputeStatus state={activeComp.state} onCancel={activeComp.cancel} onRetry={activeComp.retry} what={activeComp === base ? 'the map' : 'the zoomed window'} />
+            <ComputeStatus state={activeComp.state} progress={activeComp.progress} onCancel={activeComp.cancel} onRetry={activeComp.retry} what={activeComp === base ? 'the map' : 'the zoomed window'} />
             {geometryError && <ComputeStatus state={{ ...base.state, status: 'error', error: geometryError }} onCancel={() => {}} onRetry={base.retry} what="the contours" />}
           </div>
         </div>

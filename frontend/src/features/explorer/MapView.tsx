@@ -1,6 +1,6 @@
 import { memo, useCallback, useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { select, zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3';
-import type { BindingMapResult, MapSetup } from '@fieldbound/shared';
+import type { BindingMapResult, MapSetup, PhaseMapResult } from '@fieldbound/shared';
 import { palette } from '../../theme/palette';
 import { makeAxisScale } from '../map-render/axisScale';
 import {
@@ -24,6 +24,8 @@ export interface MapLayerInput {
   result: BindingMapResult;
   setup: MapSetup;
   geometry: MapGeometry;
+  /** The moving-ion classes the geometry was drawn with (null: the atom held fixed). */
+  phase?: PhaseMapResult | null;
 }
 
 /** An atom of the species overlay. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { CODATA2018, type LevelState, type MotionStateResult } from '@fieldbound/shared';
+import { CODATA2018, STATE_CLASS, type LevelState, type MotionStateResult, type PhaseMapResult } from '@fieldbound/shared';
 import { bindingMapFromTable } from '../map-render/testGrids';
 import type { GridAxis } from '../map-render/gridGeometry';
 import { readoutAt } from './mapReadout';
@@ -23,6 +23,15 @@ describe('readoutAt', () => {
   it('says unbound where the orbital has no state, and counts survivors', () => {
     expect(readoutAt(result, alpha, field, 1.2, 1e-6, { kind: 'orbital', m: 0 }, 'K')).toBe('m = 0: unbound');
     expect(readoutAt(result, alpha, field, 10, 1e-5, { kind: 'survivors' }, 'K')).toBe('1 bound state (m = 0…0)');
+  });
+  it('with ion motion: names the class of the orbital and counts the states that survive', () => {
+    // The bound cell's one state is a resonance for the moving ion: it does not survive.
+    const phase: PhaseMapResult = {
+      engineVersion: 'test', stateClass: Uint8Array.from([STATE_CLASS.NONE, STATE_CLASS.NONE, STATE_CLASS.NONE, STATE_CLASS.RESONANCE]),
+      widthHartree: new Float64Array(4), widthFlags: new Uint8Array(4), survivors: new Uint16Array(4), fractions: null, elapsedMs: 0,
+    };
+    expect(readoutAt(result, alpha, field, 10, 1e-5, { kind: 'orbital', m: 0 }, 'K', phase)).toMatch(/^m = 0: ε = .* K, 1 level · resonance with ion motion$/);
+    expect(readoutAt(result, alpha, field, 10, 1e-5, { kind: 'survivors' }, 'K', phase)).toBe('0 states survive (m = 0…0, ion motion)');
   });
   it('returns null more than half a cell outside the grid', () => {
     expect(readoutAt(result, alpha, field, 100, 1e-5, { kind: 'orbital', m: 0 }, 'K')).toBeNull();

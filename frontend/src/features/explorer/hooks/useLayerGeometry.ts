@@ -11,10 +11,12 @@ export interface LayerGeometry {
   /** The result (and the setup of its grid) the geometry was drawn from: it may lag behind the newest result. */
   forResult: BindingMapResult | null;
   forSetup: MapSetup | null;
+  /** The moving-ion classes it was drawn with. */
+  forPhase: PhaseMapResult | null;
   error: MapComputeError | null;
 }
 
-const NONE: LayerGeometry = { geometry: null, forResult: null, forSetup: null, error: null };
+const NONE: LayerGeometry = { geometry: null, forResult: null, forSetup: null, forPhase: null, error: null };
 
 /**
  * Contours of one result for the shown quantity and the contour levels, computed in the contour worker. Only the
@@ -43,7 +45,7 @@ export function useLayerGeometry(
     let live = true;
     const fields = mapFields(result, phase, shownKey === 's' ? { kind: 'survivors' } : { kind: 'orbital', m: Number(shownKey.slice(1)) }, levelsKey ? levelsKey.split(',').map(Number) : [], kelvinToHartree);
     client.geometry(fields).then(
-      (geometry) => live && setState({ geometry, forResult: result, forSetup: resultSetup, error: null }),
+      (geometry) => live && setState({ geometry, forResult: result, forSetup: resultSetup, forPhase: phase, error: null }),
       (error: MapComputeError) => live && setState((s) => ({ ...s, error })),
     );
     return () => {

@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import { bindingInputsKey, canonicalJson, type BindingMapResult, type MapSetup, type PhaseMapResult } from '@fieldbound/shared';
 import type { EnginePool } from '../../../workers/enginePool';
 import { MapComputeError } from '../../../workers/engineContract';
@@ -29,6 +29,40 @@ export interface MapComputation {
   /** Wall time from the request to the first picture and to the full map, ms. */
   timings: { firstPictureMs: number | null; fullMs: number | null };
 }
+
+/**
+ * Progress of a computation, kept outside React state: only the progress display subscribes to it, so a progress
+ * tick re-renders that one small component and never the page (the setup form, the map, the toolbar).
+ */
+export interface ProgressStore {
+  get(): ComputeProgress | null;
+  set(progress: ComputeProgress | null): void;
+  subscribe(listener: () => void): () => void;
+}
+
+export function createProgressStore(): ProgressStore {
+  let value: ComputeProgress | null = null;
+  const listeners = new Set<() => void>();
+  return {
+    get: () => value,
+    set(progress) {
+      if (progress === value) return;
+      value = progress;
+      for (const l of [...listeners]) l();
+    },
+    subscribe(listener) {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
+    },
+  };
+}
+
+/** The current progress of a store (re-renders only the component that calls it). */
+export function useProgress(store: ProgressStore | null | undefined): ComputeProgress | null {
+  return useSyncExternalStore(store?.subscribe ?? noSubscribe, store?.get ?? noProgress);
+}
+const noSubscribe = () => () => {};
+const noProgress = () => null;
 
 /** A small least-recently-used cache, shared by every computation of one page. */
 export class ResultCache<T = BindingMapResult> {
@@ -103,6 +137,7 @@ function mark(label: string | undefined, what: string) {
 export function useMapComputation(pool: EnginePool | null, setup: MapSetup | null, caches: MapCaches, options: UseMapComputationOptions) {
   const [state, setState] = useState<MapComputation>(IDLE);
   const [attempt, setAttempt] = useState(0);
+  const [progress] = useState(createProgressStore);
   const controller = useRef<AbortController | null>(null);
   const key = setup ? bindingInputsKey(setup) : null;
   const wantedMotion = setup ? motionKey(setup) : null;
@@ -134,10 +169,12 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
     const motionSetup = startMotion ? current : null;
     const coarse = wantsCoarse(current) ? coarseSetup(current, COARSE_SIDE) : null;
 
+    progress.set(null);
     setState((s) => ({ ...s, status: 'computing', error: null, progress: null, timings: { firstPictureMs: null, fullMs: null } }));
     const fail = (e: unknown) => {
       if (abort.signal.aborted) return; // superseded by a newer setup, or stopped by the user (`cancel` set the state)
       abort.abort();
+      progress.set(null);
       const error = e instanceof MapComputeError ? e : new MapComputeError('engine', String(e));
       setState((s) => ({ ...s, status: 'error', progress: null, error }));
     };
@@ -164,12 +201,13 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
           const elapsedMs = now - started;
           const remainingMs = p.done >= Math.max(1, p.total * 0.05) ? (elapsedMs / p.done) * (p.total - p.done) : null;
           const pass = coarse && firstPictureMs === null ? 'coarse' : 'full';
-          setState((s) => ({ ...s, progress: { pass, done: p.done, total: p.total, elapsedMs, remainingMs } }));
+          progress.set({ pass, done: p.done, total: p.total, elapsedMs, remainingMs });
         },
       })
       .then((r) => {
         if (abort.signal.aborted) return;
         fullDone = true;
+        progress.set(null);
         caches.binding.set(key, r.binding);
         if (r.phase && startMotion) caches.phase.set(`${key}|${startMotion}`, r.phase);
         const fullMs = performance.now() - started;
@@ -181,7 +219,7 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
       }, fail);
     return () => abort.abort();
     // `attempt` re-runs after Retry; the setup itself is read through the ref and keyed by `key`.
-  }, [pool, key, caches, attempt, timeoutMs, label]);
+  }, [pool, key, caches, attempt, timeoutMs, label, progress]);
 
   // Moving-ion classes for motion settings other than those the result was classified for: the engine's
   // phaseMap on the binding energies already computed (split by rows over the pool), nothing else.
@@ -214,8 +252,9 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
 
   const cancel = useCallback(() => {
     controller.current?.abort();
+    progress.set(null);
     setState((s) => (s.status === 'computing' ? { ...s, status: 'error', progress: null, error: new MapComputeError('cancelled', 'Computation cancelled.') } : s));
-  }, []);
+  }, [progress]);
   const retry = useCallback(() => {
     // After a crash start from fresh workers; otherwise just run again.
     if (state.error?.kind === 'crash') pool?.restart();
@@ -223,5 +262,5 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
   }, [pool, state.error]);
   // Classes count only when they belong to the motion settings asked for now (a fixed atom: none).
   const phase = wantedMotion && state.phaseKey === wantedMotion ? state.phase : null;
-  return { state, phase, motionWanted: wantedMotion !== null, cancel, retry };
+  return { state, progress, phase, motionWanted: wantedMotion !== null, cancel, retry };
 }
