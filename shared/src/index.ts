@@ -12,3 +12,4 @@ export * from './version.js';
 export * from './export/index.js';
 export * from './methods/index.js';
 export * from './motion/index.js';
+export * from './validation/index.js';
