@@ -1,5 +1,6 @@
 import { Injectable, Logger, type OnApplicationBootstrap, type OnModuleDestroy } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
+import { startRepeatingJob } from '../common/repeating-job';
 import type { AppConfig } from '../config/configuration';
 import { MapEventsService } from './map-events.service';
 
@@ -9,7 +10,7 @@ const HOUR_MS = 3_600_000;
 @Injectable()
 export class LiveMaintenanceService implements OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger('live');
-  private timer: NodeJS.Timeout | null = null;
+  private stop: (() => void) | null = null;
 
   constructor(
     private readonly events: MapEventsService,
@@ -17,15 +18,12 @@ export class LiveMaintenanceService implements OnApplicationBootstrap, OnModuleD
   ) {}
 
   onApplicationBootstrap(): void {
-    const run = () => void this.prune().catch((error: unknown) => this.logger.warn({ event: 'live.prune_failed', error: (error as Error).message }));
-    this.timer = setInterval(run, HOUR_MS);
-    this.timer.unref();
-    run();
+    this.stop = startRepeatingJob(() => this.prune(), HOUR_MS, this.logger, 'live.prune_failed');
   }
 
   onModuleDestroy(): void {
-    if (this.timer) clearInterval(this.timer);
-    this.timer = null;
+    this.stop?.();
+    this.stop = null;
   }
 
   async prune(): Promise<number> {

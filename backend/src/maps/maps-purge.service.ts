@@ -2,6 +2,7 @@ import { Injectable, Logger, type OnApplicationBootstrap, type OnModuleDestroy }
 import { EntityManager } from '@mikro-orm/postgresql';
 import { MAP_LIMITS } from '@fieldbound/shared';
 import { Clock } from '../common/clock';
+import { startRepeatingJob } from '../common/repeating-job';
 import { SavedMap } from './map.entity';
 
 const HOUR_MS = 3_600_000;
@@ -13,7 +14,7 @@ const HOUR_MS = 3_600_000;
 @Injectable()
 export class MapsPurgeService implements OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger('maps');
-  private timer: NodeJS.Timeout | null = null;
+  private stop: (() => void) | null = null;
 
   constructor(
     private readonly em: EntityManager,
@@ -21,15 +22,12 @@ export class MapsPurgeService implements OnApplicationBootstrap, OnModuleDestroy
   ) {}
 
   onApplicationBootstrap(): void {
-    const run = () => void this.purgeExpired().catch((error: unknown) => this.logger.warn({ event: 'maps.purge_failed', error: (error as Error).message }));
-    this.timer = setInterval(run, HOUR_MS);
-    this.timer.unref();
-    run();
+    this.stop = startRepeatingJob(() => this.purgeExpired(), HOUR_MS, this.logger, 'maps.purge_failed');
   }
 
   onModuleDestroy(): void {
-    if (this.timer) clearInterval(this.timer);
-    this.timer = null;
+    this.stop?.();
+    this.stop = null;
   }
 
   /** Deletes maps whose restore window has passed; returns how many. Uses its own EntityManager (no request context). */

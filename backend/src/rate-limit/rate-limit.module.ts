@@ -1,4 +1,5 @@
 import { Injectable, Logger, Module, type OnApplicationBootstrap, type OnModuleDestroy } from '@nestjs/common';
+import { startRepeatingJob } from '../common/repeating-job';
 import { PostgresThrottlerStorage } from './postgres-throttler.storage';
 
 const HOUR_MS = 3_600_000;
@@ -7,20 +8,17 @@ const HOUR_MS = 3_600_000;
 @Injectable()
 export class RateLimitPruneService implements OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger('rate-limit');
-  private timer: NodeJS.Timeout | null = null;
+  private stop: (() => void) | null = null;
 
   constructor(private readonly storage: PostgresThrottlerStorage) {}
 
   onApplicationBootstrap(): void {
-    const run = () => void this.storage.prune().catch((error: unknown) => this.logger.warn({ event: 'rate_limit.prune_failed', error: (error as Error).message }));
-    this.timer = setInterval(run, HOUR_MS);
-    this.timer.unref();
-    run();
+    this.stop = startRepeatingJob(() => this.storage.prune(), HOUR_MS, this.logger, 'rate_limit.prune_failed');
   }
 
   onModuleDestroy(): void {
-    if (this.timer) clearInterval(this.timer);
-    this.timer = null;
+    this.stop?.();
+    this.stop = null;
   }
 }
 
