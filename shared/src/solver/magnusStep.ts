@@ -98,3 +98,96 @@ export function magnusPropagator(
   out[2] = s * os;
   out[3] = c - s * op;
 }
+
+/**
+ * The Magnus steps k of a mesh's step table `st` (MESH_STRIDE numbers per step: R1 R2 R3 P1 P2 P3 …,
+ * see sinhMesh.ts) applied to y = (g, g') in place, for coupling and energy entering as
+ * S_j = twoL·P_j + twoE·R_j: forward (sign = +1) over k = k0 … k1 − 1, or backward with the exact
+ * inverse steps (sign = −1) over k = k1 − 1 down to k0. The arithmetic of each step is that of
+ * `magnusPropagator` (repeated here so that the whole sweep is one function: a call per step would
+ * box its six floating-point arguments, which made the sweeps allocation-bound). (g, g') is rescaled
+ * when |g| + |g'| leaves 1e±150 (the ratio, all the callers use, is unchanged). Returns the number of
+ * sign changes of g along the sweep, starting from a positive sign.
+ */
+export function magnusSweep(
+  st: Float64Array,
+  stride: number,
+  k0: number,
+  k1: number,
+  sign: number,
+  twoL: number,
+  twoE: number,
+  y: Float64Array,
+): number {
+  let g = y[0];
+  let gp = y[1];
+  let prevPos = true;
+  let changes = 0;
+  const n = k1 - k0;
+  for (let q = 0; q < n; q++) {
+    const k = sign > 0 ? k0 + q : k1 - 1 - q;
+    const o = k * stride;
+    const R1 = st[o];
+    const R2 = st[o + 1];
+    const R3 = st[o + 2];
+    const S1 = twoL * st[o + 3] + twoE * R1;
+    const S2 = twoL * st[o + 4] + twoE * R2;
+    const S3 = twoL * st[o + 5] + twoE * R3;
+    // --- magnusPropagator, inline ---
+    const c1p = R1 * S2 - R2 * S1;
+    const c2p = -(2 * (R1 * S3 - R3 * S1)) / 60;
+    const c2r = (2 * R1 * c1p) / 60;
+    const c2s = -(2 * S1 * c1p) / 60;
+    const xp = c1p;
+    const xr = -20 * R1 - R3;
+    const xs = -20 * S1 - S3;
+    const yp = c2p;
+    const yr = R2 + c2r;
+    const ys = S2 + c2s;
+    const kp = xr * ys - yr * xs;
+    const kr = 2 * (xp * yr - xr * yp);
+    const ks = 2 * (xs * yp - xp * ys);
+    const op = (sign * kp) / 240;
+    const or = sign * (R1 + R3 / 12 + kr / 240);
+    const os = sign * (S1 + S3 / 12 + ks / 240);
+    const d = op * op + or * os;
+    let c: number;
+    let sh: number;
+    if (d < 1 && d > -1) {
+      c = 1 + d * (IF2 + d * (IF4 + d * (IF6 + d * (IF8 + d * (IF10 + d * (IF12 + d * (IF14 + d * (IF16 + d * IF18))))))));
+      sh = 1 + d * (IF3 + d * (IF5 + d * (IF7 + d * (IF9 + d * (IF11 + d * (IF13 + d * (IF15 + d * (IF17 + d * IF19))))))));
+    } else if (d > 0) {
+      const mu = Math.sqrt(d);
+      const e = Math.exp(mu);
+      const ie = 1 / e;
+      c = 0.5 * (e + ie);
+      sh = (0.5 * (e - ie)) / mu;
+    } else {
+      const mu = Math.sqrt(-d);
+      c = Math.cos(mu);
+      sh = Math.sin(mu) / mu;
+    }
+    const m0 = c + sh * op;
+    const m1 = sh * or;
+    const m2 = sh * os;
+    const m3 = c - sh * op;
+    // --- end of the step exponential ---
+    const g1 = m0 * g + m1 * gp;
+    const gp1 = m2 * g + m3 * gp;
+    g = g1;
+    gp = gp1;
+    if (g !== 0) {
+      const pos = g > 0;
+      if (pos !== prevPos) changes++;
+      prevPos = pos;
+    }
+    const sz = Math.abs(g) + Math.abs(gp);
+    if (sz > 1e150 || sz < 1e-150) {
+      g /= sz;
+      gp /= sz;
+    }
+  }
+  y[0] = g;
+  y[1] = gp;
+  return changes;
+}

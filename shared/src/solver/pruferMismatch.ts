@@ -16,7 +16,7 @@
  *
  * Internal to the solver.
  */
-import { magnusPropagator } from './magnusStep.js';
+import { magnusSweep } from './magnusStep.js';
 import { MESH_STRIDE, type SinhMesh } from './sinhMesh.js';
 
 /** Decay lengths 1/κ between the turning point and the inward start: e^(−2L) ≈ 4e-18. */
@@ -27,8 +27,8 @@ function pruferAngle(g: number, gp: number, kappa: number): number {
   return g >= 0 ? Math.atan2(kappa * g, gp) : Math.atan2(-kappa * g, -gp);
 }
 
-/** Propagator scratch (module-level: no allocation per evaluation; the engine is single-threaded per worker). */
-const SCRATCH = new Float64Array(4);
+/** (g, g') scratch of the sweeps (module-level: no allocation per evaluation; the engine is single-threaded per worker). */
+const SCRATCH = new Float64Array(2);
 
 /**
  * F(ε) for coupling `lambda` on `mesh` (extended on demand).
@@ -64,77 +64,23 @@ export function pruferMismatch(mesh: SinhMesh, lambda: number, eps: number, odd:
   mesh.ensure(xFar);
   const kFar = mesh.nodeAtOrBeyond(xFar);
   const st = mesh.step;
-  const m = SCRATCH;
+  const y = SCRATCH;
   const twoL = 2 * lambda;
   const twoE = 2 * eps;
 
   // Outward.
-  let g = odd ? 0 : 1;
-  let gp = odd ? 1 : 0;
-  let prevPos = true;
-  let nOut = 0;
-  for (let k = 0; k < km; k++) {
-    const o = k * S;
-    const r1 = st[o];
-    const r2 = st[o + 1];
-    const r3 = st[o + 2];
-    magnusPropagator(
-      r1, r2, r3,
-      twoL * st[o + 3] + twoE * r1,
-      twoL * st[o + 4] + twoE * r2,
-      twoL * st[o + 5] + twoE * r3,
-      1, m,
-    );
-    const g1 = m[0] * g + m[1] * gp;
-    const gp1 = m[2] * g + m[3] * gp;
-    g = g1;
-    gp = gp1;
-    if (g !== 0) {
-      const pos = g > 0;
-      if (pos !== prevPos) nOut++;
-      prevPos = pos;
-    }
-    const sz = Math.abs(g) + Math.abs(gp);
-    if (sz > 1e150 || sz < 1e-150) {
-      g /= sz;
-      gp /= sz;
-    }
-  }
-  const thOut = pruferAngle(g, gp, kappa);
+  y[0] = odd ? 0 : 1;
+  y[1] = odd ? 1 : 0;
+  const nOut = magnusSweep(st, S, 0, km, 1, twoL, twoE, y);
+  const thOut = pruferAngle(y[0], y[1], kappa);
 
   // Inward.
   const q = kappa * kappa + twoL * mesh.wNode[kFar];
-  let h = 1;
-  let hp = -Math.sqrt(q > 0 ? q : kappa * kappa);
-  prevPos = true;
-  let nIn = 0;
-  for (let k = kFar - 1; k >= km; k--) {
-    const o = k * S;
-    const r1 = st[o];
-    const r2 = st[o + 1];
-    const r3 = st[o + 2];
-    magnusPropagator(
-      r1, r2, r3,
-      twoL * st[o + 3] + twoE * r1,
-      twoL * st[o + 4] + twoE * r2,
-      twoL * st[o + 5] + twoE * r3,
-      -1, m,
-    );
-    const h1 = m[0] * h + m[1] * hp;
-    const hp1 = m[2] * h + m[3] * hp;
-    h = h1;
-    hp = hp1;
-    if (h !== 0) {
-      const pos = h > 0;
-      if (pos !== prevPos) nIn++;
-      prevPos = pos;
-    }
-    const sz = Math.abs(h) + Math.abs(hp);
-    if (sz > 1e150 || sz < 1e-150) {
-      h /= sz;
-      hp /= sz;
-    }
-  }
+  y[0] = 1;
+  y[1] = -Math.sqrt(q > 0 ? q : kappa * kappa);
+  const nIn = magnusSweep(st, S, km, kFar, -1, twoL, twoE, y);
+  const h = y[0];
+  const hp = y[1];
   const thIn = pruferAngle(h, hp, kappa);
   return (nOut + nIn) * Math.PI + thOut - thIn;
 }

@@ -8,7 +8,8 @@ import { describe, expect, it } from 'vitest';
 import { EngineInputError } from '../errors.js';
 import { expectClose } from '../../test/expectClose.js';
 import { countBoundStates, createBoundStateSolver, solveBoundStates } from './solveBoundStates.js';
-import { magnusPropagator } from './magnusStep.js';
+import { magnusPropagator, magnusSweep } from './magnusStep.js';
+import { mulberry32 } from '../../test/seededRandom.js';
 import { thresholdCouplings } from './thresholdCouplings.js';
 
 const PT_SOURCE =
@@ -311,6 +312,55 @@ describe('magnusPropagator: the step exponential of a traceless 2×2 matrix', ()
         expectClose(out[1], R1 * sc, { rel: 2e-15, abs: 1e-300, inputs, source: SRC });
         expectClose(out[2], S1 * sc, { rel: 2e-15, abs: 1e-300, inputs, source: SRC });
         expectClose(out[0] * out[3] - out[1] * out[2], 1, { rel: 1e-13 * Math.max(1, c * c), inputs, source: 'det exp(Ω) = e^(tr Ω) = 1' });
+      }
+    }
+  });
+});
+
+describe('magnusSweep: a whole sweep in one call', () => {
+  it('gives bit-for-bit the result of stepping with magnusPropagator (forward and inverse), and counts the sign changes of g', () => {
+    // a synthetic step table (8 numbers per step, as the mesh stores them) with steps from quiet
+    // (|δ| ≪ 1) to strongly oscillating or growing ones, so every route of the step exponential is used
+    const rand = mulberry32(31);
+    const S = 8;
+    const n = 60;
+    const st = new Float64Array(n * S);
+    for (let k = 0; k < n; k++) {
+      const h = 0.02 + 0.5 * rand();
+      st[k * S] = h;
+      st[k * S + 1] = 0.1 * h * (rand() - 0.5);
+      st[k * S + 2] = 0.01 * h * (rand() - 0.5);
+      st[k * S + 3] = -h * 10 * rand();
+      st[k * S + 4] = 0.3 * h * (rand() - 0.5);
+      st[k * S + 5] = 0.03 * h * (rand() - 0.5);
+    }
+    for (const [twoL, twoE] of [[40, 0.5], [2, 30], [0.01, 0]]) {
+      for (const sign of [1, -1]) {
+        let g = 1;
+        let gp = -0.3;
+        let prevPos = true;
+        let changes = 0;
+        const m = new Float64Array(4);
+        for (let q = 0; q < n; q++) {
+          const k = sign > 0 ? q : n - 1 - q;
+          const o = k * S;
+          magnusPropagator(st[o], st[o + 1], st[o + 2], twoL * st[o + 3] + twoE * st[o], twoL * st[o + 4] + twoE * st[o + 1], twoL * st[o + 5] + twoE * st[o + 2], sign, m);
+          const g1 = m[0] * g + m[1] * gp;
+          gp = m[2] * g + m[3] * gp;
+          g = g1;
+          if (g !== 0) {
+            if (g > 0 !== prevPos) changes++;
+            prevPos = g > 0;
+          }
+          const sz = Math.abs(g) + Math.abs(gp);
+          if (sz > 1e150 || sz < 1e-150) {
+            g /= sz;
+            gp /= sz;
+          }
+        }
+        const y = new Float64Array([1, -0.3]);
+        const c = magnusSweep(st, S, 0, n, sign, twoL, twoE, y);
+        expect({ twoL, twoE, sign, g: y[0], gp: y[1], changes: c }).toEqual({ twoL, twoE, sign, g, gp, changes });
       }
     }
   });

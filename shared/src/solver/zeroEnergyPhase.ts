@@ -21,25 +21,20 @@
  *
  * Internal to the solver.
  */
-import { magnusPropagator } from './magnusStep.js';
+import { magnusSweep } from './magnusStep.js';
 import { MESH_STRIDE, type SinhMesh } from './sinhMesh.js';
 
 const TAIL_REL = 1e-9;
 const TAIL_ABS = 1e-16;
 
-/** Propagator scratch (module-level: no allocation per evaluation; the engine is single-threaded per worker). */
-const SCRATCH = new Float64Array(4);
+/** (g, g') scratch of the sweep (module-level: no allocation per evaluation; the engine is single-threaded per worker). */
+const SCRATCH = new Float64Array(2);
 
 /** Ψ(λ) and the node count on the numerical range, for one parity. */
 export function zeroEnergyPhase(mesh: SinhMesh, lambda: number, odd: boolean, c4: number | undefined): number {
-  const S = MESH_STRIDE;
-  const m = SCRATCH;
-  let g = odd ? 0 : 1;
-  let gp = odd ? 1 : 0;
-  let prevPos = true;
-  let nodes = 0;
+  // x_e does not depend on the solution: find it first (extending the mesh as needed) …
+  const withC4 = c4 !== undefined && c4 > 0;
   let good = 0;
-  const twoL = 2 * lambda;
   let k = 0;
   for (;;) {
     if (k >= mesh.n) {
@@ -47,33 +42,20 @@ export function zeroEnergyPhase(mesh: SinhMesh, lambda: number, odd: boolean, c4
       mesh.ensure(mesh.x[mesh.n] * 4 + mesh.a);
       if (k >= mesh.n) break;
     }
-    const st = mesh.step;
-    const o = k * S;
-    magnusPropagator(st[o], st[o + 1], st[o + 2], twoL * st[o + 3], twoL * st[o + 4], twoL * st[o + 5], 1, m);
-    const g1 = m[0] * g + m[1] * gp;
-    const gp1 = m[2] * g + m[3] * gp;
-    g = g1;
-    gp = gp1;
-    if (g !== 0) {
-      const pos = g > 0;
-      if (pos !== prevPos) nodes++;
-      prevPos = pos;
-    }
-    const sz = Math.abs(g) + Math.abs(gp);
-    if (sz > 1e150 || sz < 1e-150) {
-      g /= sz;
-      gp /= sz;
-    }
     k++;
     const x = mesh.x[k];
     const w = mesh.wNode[k];
-    const inTail =
-      c4 !== undefined && c4 > 0
-        ? Math.abs((w * x * x * x * x) / c4 + 1) < TAIL_REL
-        : x * x * lambda * Math.abs(w) < TAIL_ABS;
+    const inTail = withC4 ? Math.abs((w * x * x * x * x) / c4 + 1) < TAIL_REL : x * x * lambda * Math.abs(w) < TAIL_ABS;
     good = inTail ? good + 1 : 0;
     if (good >= 4) break;
   }
+  // … then integrate the steps 0 … k − 1 in one sweep
+  const y = SCRATCH;
+  y[0] = odd ? 0 : 1;
+  y[1] = odd ? 1 : 0;
+  const nodes = magnusSweep(mesh.step, MESH_STRIDE, 0, k, 1, 2 * lambda, 0, y);
+  const g = y[0];
+  const gp = y[1];
   const xe = mesh.x[k];
   const sg = g >= 0 ? 1 : -1;
   if (c4 !== undefined && c4 > 0) {
