@@ -104,7 +104,9 @@ export class LiveHubService implements OnModuleDestroy {
     req.socket.setKeepAlive(true);
     res.write(`retry: ${RETRY_MS}\n: live updates of map ${spec.mapId}\n\n`);
 
-    const sub: Subscriber = { spec, res, lastSentId: spec.lastEventId ?? latest, live: false, pending: [], closed: false, timers: [] };
+    // An id beyond the map's newest event was not issued by this database (restored or recreated since): start from now.
+    const from = spec.lastEventId !== null && spec.lastEventId <= latest ? spec.lastEventId : latest;
+    const sub: Subscriber = { spec, res, lastSentId: from, live: false, pending: [], closed: false, timers: [] };
     this.register(sub, latest);
     res.on('close', () => this.unregister(sub));
     // The client may have gone while the first query ran: then 'close' has already fired.
