@@ -32,6 +32,8 @@ const STRIDE = 8; // R1 R2 R3 P1 P2 P3 maxAbsW(start & Gauss nodes) h
  */
 const TAIL_G = 1e-2;
 const TAIL_STRETCH = 4;
+/** (TAIL_G/g)^(1/7) exceeds TAIL_STRETCH (with room for rounding) beyond this ratio: no pow needed. */
+const TAIL_FULL = Math.pow(TAIL_STRETCH, 7) * (1 + 1e-9);
 
 /**
  * cosh t and sinh t of a mesh position (t ≥ 0) into HYP[0], HYP[1]: from one exponential where
@@ -149,7 +151,7 @@ export class SinhMesh {
     coshSinh(t0);
     const d0 = a * HYP[0];
     const g0 = d0 * d0 * twoL * Math.abs(w0); // (x')²·2λ|w|: the potential's weight in a unit step
-    const stretch = g0 < TAIL_G ? Math.min(TAIL_STRETCH, Math.pow(TAIL_G / g0, 1 / 7)) : 1;
+    const stretch = g0 < TAIL_G ? (TAIL_G / g0 > TAIL_FULL ? TAIL_STRETCH : Math.min(TAIL_STRETCH, Math.pow(TAIL_G / g0, 1 / 7))) : 1;
     let h = Math.min(hMax * stretch, cOsc / (d0 * Math.sqrt(twoL * Math.abs(w0)) + 1e-300));
     // Land exactly on the next breakpoint if it falls inside this step.
     for (const tb of this.tBreak) {
