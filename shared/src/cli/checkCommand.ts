@@ -4,7 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { ENGINE_VERSION } from '../version.js';
 import { runValidation, type Exact1dOracle, type SpecialOracle, type ValidationData, type ValidationResult } from '../validation/validationCases.js';
-import { CliUsageError } from './cliUsageError.js';
+import { CliInputError, CliUsageError } from './cliUsageError.js';
 import type { CliIo } from './main.js';
 
 export interface CheckArgs {
@@ -27,7 +27,16 @@ export function parseCheckArgs(argv: string[]): CheckArgs | null {
 
 /** The committed oracle files (shared/test/fixtures), two directories above src/cli and dist/cli alike. */
 export function loadValidationData(): ValidationData {
-  const read = <T>(name: string): T => JSON.parse(readFileSync(fileURLToPath(new URL(`../../test/fixtures/${name}`, import.meta.url)), 'utf8')) as T;
+  const read = <T>(name: string): T => {
+    const path = fileURLToPath(new URL(`../../test/fixtures/${name}`, import.meta.url));
+    let text: string;
+    try {
+      text = readFileSync(path, 'utf8');
+    } catch (e) {
+      throw new CliInputError(`the committed reference values ${path} cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}); fieldbound check runs from the repository checkout`);
+    }
+    return JSON.parse(text) as T;
+  };
   return { special: read<SpecialOracle>('special-oracle.json'), exact1d: read<Exact1dOracle>('exact-1d-oracle.json') };
 }
 

@@ -8,3 +8,8 @@ export class CliUsageError extends Error {
     super(`${argument}: ${message}`);
   }
 }
+
+/** Bad input that is not an option: an unreadable or invalid setup file, an export too large (exit 2, may span lines). */
+export class CliInputError extends Error {
+  override name = 'CliInputError';
+}

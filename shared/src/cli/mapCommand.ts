@@ -10,7 +10,7 @@ import { jsonSyntaxError } from '../export/jsonSyntaxError.js';
 import type { BindingMapResult, PhaseMapResult } from '../map/mapTypes.js';
 import { validateSetup, type MapSetup, type SetupIssue } from '../setup/mapSetup.js';
 import { ENGINE_VERSION } from '../version.js';
-import { CliUsageError } from './cliUsageError.js';
+import { CliInputError, CliUsageError } from './cliUsageError.js';
 import type { CliIo } from './main.js';
 import { computeClassifiedMap } from './mapPool.js';
 import { ProgressReporter } from './progressBar.js';
@@ -34,10 +34,7 @@ const OPTIONS = {
   help: { type: 'boolean', short: 'h', default: false },
 } as const;
 
-/** Bad input that is not an option: an unreadable or invalid setup file, an export too large (exit 2, may span lines). */
-export class CliInputError extends Error {
-  override name = 'CliInputError';
-}
+export { CliInputError };
 
 /**
  * Parses `fieldbound map SETUP.json --out FILE.{csv,json} [--threads N] [--date TEXT] [--quiet]`.
