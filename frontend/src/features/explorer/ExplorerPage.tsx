@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useMemo, useRef, useState, type CSSProperties, type ReactNode } from 'react';
+import { startTransition, useCallback, useEffect, useMemo, useRef, useState, type CSSProperties, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { Button, Drawer, Select, Space, Tooltip, Typography } from 'antd';
 import { CompressOutlined, MenuFoldOutlined, MenuUnfoldOutlined } from '@ant-design/icons';
@@ -126,7 +126,8 @@ export function ExplorerPage({
   const { status: baseStatus, result: baseResult, resultSetup: baseResultSetup, resultPass: basePass } = base.state;
   const baseFullMs = base.state.timings.fullMs;
   useEffect(() => {
-    if (baseStatus === 'done' && basePass === 'full' && baseResult && baseResultSetup) onComputed?.({ setup: baseResultSetup, result: baseResult, fullMs: baseFullMs });
+    // As a transition: what the host page does with a finished map (summary, export state) renders in slices.
+    if (baseStatus === 'done' && basePass === 'full' && baseResult && baseResultSetup) startTransition(() => onComputed?.({ setup: baseResultSetup, result: baseResult, fullMs: baseFullMs }));
   }, [baseStatus, basePass, baseResult, baseResultSetup, baseFullMs, onComputed]);
 
   const shown = applied.display.shown;

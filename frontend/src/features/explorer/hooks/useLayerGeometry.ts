@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { startTransition, useEffect, useState } from 'react';
 import type { BindingMapResult, MapSetup, PhaseMapResult } from '@fieldbound/shared';
 import type { ContourClient } from '../../../workers/contourClient';
 import type { MapComputeError } from '../../../workers/engineContract';
@@ -45,7 +45,7 @@ export function useLayerGeometry(
     let live = true;
     const fields = mapFields(result, phase, shownKey === 's' ? { kind: 'survivors' } : { kind: 'orbital', m: Number(shownKey.slice(1)) }, levelsKey ? levelsKey.split(',').map(Number) : [], kelvinToHartree);
     client.geometry(fields).then(
-      (geometry) => live && setState({ geometry, forResult: result, forSetup: resultSetup, forPhase: phase, error: null }),
+      (geometry) => live && startTransition(() => setState({ geometry, forResult: result, forSetup: resultSetup, forPhase: phase, error: null })),
       (error: MapComputeError) => live && setState((s) => ({ ...s, error })),
     );
     return () => {

@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
+import { startTransition, useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import { bindingInputsKey, canonicalJson, type BindingMapResult, type MapSetup, type PhaseMapResult } from '@fieldbound/shared';
 import type { EnginePool } from '../../../workers/enginePool';
 import { MapComputeError } from '../../../workers/engineContract';
@@ -184,7 +184,8 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
         if (abort.signal.aborted || fullDone) return;
         firstPictureMs = performance.now() - started;
         mark(label, 'coarse-result');
-        setState((s) => ({ ...s, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null } }));
+        // Results render as transitions: React renders them in slices, so a new picture never blocks the page.
+        startTransition(() => setState((s) => ({ ...s, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null } })));
       }, fail);
     }
     pool
@@ -212,10 +213,12 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
         if (r.phase && startMotion) caches.phase.set(`${key}|${startMotion}`, r.phase);
         const fullMs = performance.now() - started;
         mark(label, 'full-result');
-        setState({
-          status: 'done', result: r.binding, resultSetup: current, resultPass: 'full', phase: r.phase, phaseKey: r.phase ? startMotion : null,
-          progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs },
-        });
+        startTransition(() =>
+          setState({
+            status: 'done', result: r.binding, resultSetup: current, resultPass: 'full', phase: r.phase, phaseKey: r.phase ? startMotion : null,
+            progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs },
+          }),
+        );
       }, fail);
     return () => abort.abort();
     // `attempt` re-runs after Retry; the setup itself is read through the ref and keyed by `key`.
@@ -239,7 +242,7 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
       (phase) => {
         if (abort.signal.aborted) return;
         if (cacheKey) caches.phase.set(cacheKey, phase);
-        setState((s) => (s.result === result ? { ...s, phase, phaseKey: wantedMotion } : s));
+        startTransition(() => setState((s) => (s.result === result ? { ...s, phase, phaseKey: wantedMotion } : s)));
       },
       (e: unknown) => {
         if (abort.signal.aborted) return;
