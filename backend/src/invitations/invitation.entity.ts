@@ -14,6 +14,10 @@ export type InvitationMailStatus = 'sent' | 'pending';
  */
 @Entity({ tableName: 'invitations' })
 @Index({ name: 'invitations_team_index', properties: ['team'] })
+@Index({
+  name: 'invitations_mail_due_index',
+  expression: `create index "invitations_mail_due_index" on "invitations" ("mail_next_attempt_at") where "mail_status" = 'pending'`,
+})
 export class Invitation {
   @PrimaryKey({ type: 'uuid' })
   id: string;
@@ -55,11 +59,11 @@ export class Invitation {
   @Property({ type: 'datetime', nullable: true })
   revokedAt: Date | null = null;
 
-  @Property({ type: 'string', length: 16 })
+  @Enum({ items: () => ['sent', 'pending'], type: 'string', default: 'sent' })
   mailStatus: InvitationMailStatus & Opt = 'sent';
 
   /** Failed deliveries since the last successful one. */
-  @Property({ type: 'integer' })
+  @Property({ type: 'integer', default: 0 })
   mailAttempts: number & Opt = 0;
 
   @Property({ type: 'datetime', nullable: true })

@@ -8,11 +8,10 @@ import { Migration } from '@mikro-orm/migrations';
 export class Migration20261202040000_invitation_mail extends Migration {
   override async up(): Promise<void> {
     this.addSql(`alter table "invitations"
-      add column "mail_status" varchar(16) not null default 'sent',
+      add column "mail_status" text check ("mail_status" in ('sent', 'pending')) not null default 'sent',
       add column "mail_attempts" int not null default 0,
       add column "mail_next_attempt_at" timestamptz null,
       add column "mail_last_error" varchar(500) null;`);
-    this.addSql(`alter table "invitations" add constraint "invitations_mail_status_check" check ("mail_status" in ('sent', 'pending'));`);
     this.addSql(`create index "invitations_mail_due_index" on "invitations" ("mail_next_attempt_at") where "mail_status" = 'pending';`);
   }
 
