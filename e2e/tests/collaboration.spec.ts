@@ -117,11 +117,13 @@ test('an editor pins a region, a viewer sees it live and replies, the editor res
   const reply = 'Checked the widths: still a resonance at 4 K.';
   await viewerThread.getByRole('textbox', { name: 'Reply' }).fill(reply);
   await viewerThread.getByRole('button', { name: 'Reply' }).click();
-  await expect(viewerThread.getByText(reply)).toBeVisible();
+  await expect(viewerThread.getByRole('list', { name: 'Replies' }).getByText(reply)).toBeVisible();
+  await expect(viewerThread.getByRole('textbox', { name: 'Reply' })).toHaveValue('');
 
   // The reply reaches the editor's open thread live; the editor resolves the pin and the viewer sees that live.
-  await expect(editorThread.getByText(reply)).toBeVisible({ timeout: 5_000 });
-  await expect(editorThread.getByText('Tariq Viewer')).toBeVisible();
+  const editorReplies = editorThread.getByRole('list', { name: 'Replies' });
+  await expect(editorReplies.getByText(reply)).toBeVisible({ timeout: 5_000 });
+  await expect(editorReplies.getByText('Tariq Viewer')).toBeVisible();
   await editorThread.getByRole('button', { name: /Resolve/ }).click();
   await expect(editorThread.getByRole('button', { name: /Reopen/ })).toBeVisible();
   await expect(viewerThread.getByText('Resolved', { exact: true })).toBeVisible({ timeout: 5_000 });
@@ -168,6 +170,17 @@ test('an editor pins a region, a viewer sees it live and replies, the editor res
   const second = await editorCtx.request.post(`/api/maps/${mapId}/pins`, { data: { geometry: { kind: 'point', at: { alpha: 30, fieldTesla: 5 } }, title: 'Compare with Rb' }, headers: bearer(token) });
   expect(second.status()).toBe(201);
   await expect(anon.getByRole('button', { name: 'Compare with Rb' })).toBeVisible({ timeout: 5_000 });
+
+  // The link's lecture view: the pins are the steps; Esc comes back to the shared view.
+  await anon.getByRole('dialog').getByRole('button', { name: 'Close' }).click();
+  await anon.getByRole('button', { name: 'Present' }).click();
+  const lecture = anon.getByTestId('lecture-view');
+  await expect(lecture.getByTestId('lecture-overview')).toContainText('2 pins');
+  await anon.keyboard.press('ArrowRight');
+  await expect(lecture.getByTestId('lecture-current-pin')).toContainText(`Pin 1 of 2 ${pinTitle} (resolved)`);
+  await anon.keyboard.press('Escape');
+  await expect(anon.getByText('Read-only view')).toBeVisible();
+  await expect(anon.getByTestId('live-status')).toHaveAttribute('data-status', 'live', { timeout: 30_000 });
 
   // Revoked: the open page turns into the explanation, and so does a fresh visit.
   const revoked = await editorCtx.request.delete(`/api/maps/${mapId}/viewing-links/${link.id}`, { headers: bearer(token) });
