@@ -1,6 +1,6 @@
 // `npm run loadtest`: the built server under a realistic mix of reads and writes from many clients.
 // Starts (or reuses) the local PostgreSQL cluster, creates a fresh database `fieldbound_loadtest` with the
-// demo seed, runs the built backend on 127.0.0.1:FIELDBOUND_LOADTEST_PORT (3190), signs in the demo people,
+// demo seed, runs the built backend on 127.0.0.1:FIELDBOUND_LOADTEST_PORT (3195), signs in the demo people,
 // and replays with autocannon: list maps, open a map and its pins, read the lecture's viewing link, add pins,
 // reply, save setups with expectedVersion. Bounded in time (--duration) and requests (--max-requests).
 // Prints a table per kind of request and writes the figures to docs/loadtest.md (--no-write to skip).
@@ -19,7 +19,7 @@ import { ensureNodeModules } from './lib/deps.mjs';
 import { LocalCluster, assertPortFree } from './lib/postgres.mjs';
 
 const DATABASE = process.env.FIELDBOUND_LOADTEST_DB ?? 'fieldbound_loadtest';
-const PORT = Number(process.env.FIELDBOUND_LOADTEST_PORT ?? 3190);
+const PORT = Number(process.env.FIELDBOUND_LOADTEST_PORT ?? 3195);
 const BASE = `http://127.0.0.1:${PORT}`;
 const LECTURE_TOKEN = 'demo-lecture-link-Solberg-group-anions-2026';
 // The demo people (README.md). The viewer only reads and replies; the others also write.
