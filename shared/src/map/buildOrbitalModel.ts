@@ -39,7 +39,7 @@ export interface BuildSettings {
 }
 
 export const DEFAULT_BUILD: BuildSettings = {
-  tolG: 3e-7,
+  tolG: 4e-7, // prepareBindingMap sets 0.4·tolerance
   tolThreshold: 1e-12,
   meshTolGround: 1e-6,
   meshTolExcited: 1e-10,
