@@ -367,15 +367,36 @@ export function buildOrbitalModel(
       const S = degS[q];
       const rows = rowsOf(S);
       const xs = lobattoNodes(U);
+      const ys = lobattoNodes(S);
       const v = values[q];
       const W = S + 1;
+      /** v at (i, k) extrapolated in s from the rows before k (Lagrange on the rows' true positions). */
+      const fromRows = (i: number, k: number): number => {
+        const o = i * W;
+        if (k === 1) return v[o];
+        const y = ys[k];
+        const y1 = ys[k - 1];
+        const y2 = ys[k - 2];
+        if (k === 2) return v[o + 1] + ((y - y1) * (v[o + 1] - v[o])) / (y1 - y2);
+        const y3 = ys[k - 3];
+        return (
+          (v[o + k - 1] * (y - y2) * (y - y3)) / ((y1 - y2) * (y1 - y3)) +
+          (v[o + k - 2] * (y - y1) * (y - y3)) / ((y2 - y1) * (y2 - y3)) +
+          (v[o + k - 3] * (y - y1) * (y - y2)) / ((y3 - y1) * (y3 - y2))
+        );
+      };
       for (let k = 0; k <= S; k++) {
         throwIfAborted(signal);
         for (let i = 0; i <= U; i++) {
           let guess: number;
           let spread: number;
-          if (k >= 2) {
-            guess = 2 * v[i * W + k - 1] - v[i * W + k - 2];
+          if (k >= 1 && i >= 1) {
+            // the s-extrapolation corrected by its error at the neighbouring u-node of this row
+            const corr = v[(i - 1) * W + k] - fromRows(i - 1, k);
+            guess = fromRows(i, k) + corr;
+            spread = Math.min(0.5, 0.5 * Math.abs(corr) + 1e-6);
+          } else if (k >= 2) {
+            guess = fromRows(i, k);
             spread = Math.abs(v[i * W + k - 1] - v[i * W + k - 2]) + 1e-6;
           } else if (k === 1) {
             guess = v[i * W];
