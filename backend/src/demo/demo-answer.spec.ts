@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { CODATA2018, levels, motionSettingsFromSetup, motionStates, parseSetup, type MotionStateResult } from '@fieldbound/shared';
 import { BUILTIN_SPECIES } from '../species/data/builtin-species';
 import { DEMO_MAPS, LAB_SHORTLIST } from './demo-maps';
+import { DEMO_PINS } from './demo-threads';
 
 // The user guide walks a newcomer through one question on the demo data: "which of these species have a
 // field-induced state that survives at 4 K in a 20 T magnet, and how strongly bound is it?" These checks keep
@@ -87,5 +88,25 @@ describe('the demo answers the guide’s question (4 K ion motion, 20 T)', () =>
     const cd = statesAt('lab4K', 'Cd', 20, 114).find((s) => s.m === 0);
     expect(cd?.class).toBe('bound');
     expect(cd?.fractions?.bound).toBeGreaterThan(0.95);
+  });
+});
+
+describe('the demo pins leave the guide’s probe points free', () => {
+  // A region pin takes the clicks inside it, so none may cover a point the guide asks the reader to probe.
+  const probed: { map: (typeof DEMO_MAPS)[number]['key']; symbol: string; tesla: number }[] = [
+    { map: 'lab4K', symbol: 'Mg', tesla: 20 },
+    { map: 'lab4K', symbol: 'Cd', tesla: 20 },
+    { map: 'cutoffSmall', symbol: 'Mg', tesla: 20 },
+    { map: 'cutoffLarge', symbol: 'Mg', tesla: 20 },
+  ];
+
+  it.each(probed)('no region pin on $map covers $symbol at $tesla T', ({ map, symbol, tesla }) => {
+    const alpha = alphaOf(symbol);
+    const covering = DEMO_PINS.filter((p) => p.map === map && p.geometry.kind === 'rect').filter((p) => {
+      const g = p.geometry as { min: { alpha: number; fieldTesla: number }; max: { alpha: number; fieldTesla: number } };
+      return alpha >= g.min.alpha && alpha <= g.max.alpha && tesla >= g.min.fieldTesla && tesla <= g.max.fieldTesla;
+    });
+    expect(covering.map((p) => p.title)).toEqual([]);
+    expect(DEMO_PINS.some((p) => p.map === map && p.geometry.kind === 'polygon')).toBe(false);
   });
 });

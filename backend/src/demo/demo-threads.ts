@@ -72,9 +72,10 @@ export const DEMO_PINS: DemoPin[] = [
     author: 'editorA',
     daysAgo: 4,
     title: 'What survives at 4 K?',
-    body: 'With a thermal ensemble at 4 K every m ≥ 1 state is destroyed by the motional field; only m = 0 survives. At 20 T Mg and Cd stay bound, Zn, Be, Hg and Xe turn into resonances, and Kr and Ar are gone. Lower fields are worse, not better: at 10 T even Mg is only a resonance, because the binding falls faster than the motional field.',
+    body: 'With a thermal ensemble at 4 K every m ≥ 1 state is destroyed by the motional field; only m = 0 survives. At 20 T Mg and Cd stay bound, but in this box Zn, Be, Hg and Xe turn into resonances, and Kr and Ar are gone. Lower fields are worse, not better: at 10 T even Mg is only a resonance, because the binding falls faster than the motional field.',
     category: 'question',
-    geometry: { kind: 'rect', min: { alpha: 30, fieldTesla: 10 }, max: { alpha: 120, fieldTesla: 45 } },
+    // Over the species that do not stay bound (Ar … Zn), leaving Cd and Mg free to probe.
+    geometry: { kind: 'rect', min: { alpha: 10, fieldTesla: 10 }, max: { alpha: 40, fieldTesla: 45 } },
     replies: [
       { author: 'editorB', afterHours: 6, body: 'The map uses mass number 24 for every marker. Cd is heavier (114): with its own mass it moves more slowly at 4 K, and nearly the whole ensemble stays bound at 20 T. Change the mass number in the setup to check a species.' },
       { author: 'owner', afterHours: 12, body: 'Compare with the 77 K map before we decide whether the cryogenic trap is worth it.' },
@@ -88,7 +89,8 @@ export const DEMO_PINS: DemoPin[] = [
     title: 'Caveat: m = 0 is cutoff-dominated here',
     body: 'Above α/r_c² ≈ 1 the m = 0 binding depends on r_c more than on anything else. Quote m = 0 numbers only with the band from r_c/2 to 2 r_c.',
     category: 'caveat',
-    geometry: { kind: 'rect', min: { alpha: 1, fieldTesla: 1 }, max: { alpha: 1000, fieldTesla: 45 } },
+    // A point in a quiet corner: a pin over the whole map would stand between the reader and the probe.
+    geometry: { kind: 'point', at: { alpha: 400, fieldTesla: 3 } },
     replies: [],
   },
 ];
