@@ -13,7 +13,7 @@ import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { traceState } from '../../src/motion/exact/traceState.js';
 import { powerLawKappa } from '../../src/motion/exact/zeroRangeSolver.js';
-import { GENERATOR_VERSION, RESOLVABLE_LN_WIDTH } from './tableGrid.js';
+import { RESOLVABLE_LN_WIDTH, SOLVER_VERSION } from './tableGrid.js';
 
 const args = process.argv.slice(2);
 const opt = (name: string, def: number): number => (args.includes(name) ? Number(args[args.indexOf(name) + 1]) : def);
@@ -48,5 +48,5 @@ for (let k = 0; k < pairs; k++) {
   });
   console.log(`m=${m} p=${p} ξ=${xs.join(',')}: ${st.map((s) => (s.destroyed ? 'destroyed' : Math.log(s.width).toFixed(3))).join(' ')}`);
 }
-writeFileSync(out, JSON.stringify({ generator: 'shared/scripts/width-table/generateHeldOut.ts', solverVersion: GENERATOR_VERSION, points }, null, 1) + '\n');
+writeFileSync(out, JSON.stringify({ generator: 'shared/scripts/width-table/generateHeldOut.ts', solverVersion: SOLVER_VERSION, points }, null, 1) + '\n');
 console.log(`wrote ${points.length} points in ${((performance.now() - t0) / 1000).toFixed(0)} s`);

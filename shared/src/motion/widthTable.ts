@@ -4,7 +4,9 @@
  * functions of the orbital m, the local shape number p and ξ = ε/(F l).
  *
  * Interpolation: g = y + ξ² bilinearly in ξ and 1/p (g is smooth where y falls
- * like −ξ²). Beyond the large-ξ end ξ₁ = 11.5: y = y₁ − (ξ² − ξ₁²) + b ln(ξ/ξ₁)
+ * like −ξ²). The p nodes are per m: the base grid 2, 2.5, …, 9 plus refinement
+ * nodes where the continued pole switches between neighbouring columns; across an
+ * interval marked as a pole switch the nearer node is used, not a blend of two states. Beyond the large-ξ end ξ₁ = 11.5: y = y₁ − (ξ² − ξ₁²) + b ln(ξ/ξ₁)
  * (b the fitted slope of g against ln ξ), e + 1 ∝ ξ^(−2) (second-order Stark
  * shift). Below ξ = 1, or where a bracketing node has no state, the state is
  * destroyed. m > 16 or p outside [2, 9] are evaluated at the nearest table edge
@@ -17,24 +19,46 @@ import {
   WIDTH_TABLE_B,
   WIDTH_TABLE_E,
   WIDTH_TABLE_G,
-  WIDTH_TABLE_M,
+  WIDTH_TABLE_M_START,
   WIDTH_TABLE_P,
+  WIDTH_TABLE_P_NODES,
+  WIDTH_TABLE_SWITCH,
   WIDTH_TABLE_XI,
 } from './table/widthTableData.js';
 
-const NM = WIDTH_TABLE_M.length;
-const NP = WIDTH_TABLE_P.length;
+const NM = WIDTH_TABLE_M_START.length - 1;
 const NX = WIDTH_TABLE_XI.length;
 const G = Float64Array.from(WIDTH_TABLE_G);
 const EE = Float64Array.from(WIDTH_TABLE_E);
-const BB = Float64Array.from(WIDTH_TABLE_B);
-const INV_P = Float64Array.from(WIDTH_TABLE_P, (p) => 1 / p);
+// one padding entry: a switch interval at the last column reads BB[c + 1] with weight 0
+const BB = Float64Array.from([...WIDTH_TABLE_B, 0]);
+const M_START = Int32Array.from(WIDTH_TABLE_M_START);
+const P_NODES = Float64Array.from(WIDTH_TABLE_P_NODES);
+const INV_P = Float64Array.from(WIDTH_TABLE_P_NODES, (p) => 1 / p);
+const SWITCH = Uint8Array.from(WIDTH_TABLE_SWITCH);
 const XI = Float64Array.from(WIDTH_TABLE_XI);
-const P_MIN = WIDTH_TABLE_P[0]!;
-const P_MAX = WIDTH_TABLE_P[NP - 1]!;
-const P_STEP = WIDTH_TABLE_P[1]! - P_MIN;
 const XI_MIN = XI[0]!;
 const XI_MAX = XI[NX - 1]!;
+const P_MIN = WIDTH_TABLE_P[0]!;
+const P_MAX = WIDTH_TABLE_P[WIDTH_TABLE_P.length - 1]!;
+/**
+ * O(1) p bracket on the per-m (non-uniform) p nodes: bins of width 1/BINS_PER_UNIT over
+ * [P_MIN, P_MAX]; P_LOOKUP[m·NB + k] is the last column of m whose node is ≤ the bin's lower
+ * edge (at most the second-to-last column of m). The lookup then steps forward over the few
+ * nodes inside the bin.
+ */
+const BINS_PER_UNIT = 64;
+const NB = Math.ceil((P_MAX - P_MIN) * BINS_PER_UNIT) + 1;
+const P_LOOKUP = new Int32Array(NM * NB);
+for (let m = 0; m < NM; m++) {
+  const last = M_START[m + 1]! - 2;
+  let c = M_START[m]!;
+  for (let k = 0; k < NB; k++) {
+    const edge = P_MIN + k / BINS_PER_UNIT;
+    while (c < last && P_NODES[c + 1]! <= edge) c++;
+    P_LOOKUP[m * NB + k] = c;
+  }
+}
 // ξ grid: uniform fine part then uniform coarse part
 const FINE_STEP = XI[1]! - XI[0]!;
 let fineCount = 1;
@@ -68,78 +92,33 @@ export const TABLE_STATUS = {
  * widthTableInto(0, 9, 4, out); // 0; out[0] ≈ ln(1.39e−7) = −15.79, out[1] ≈ −1.0243
  */
 export function widthTableInto(m: number, p: number, xi: number, out: Float64Array): number {
-  let status = 0;
   if (!(xi >= XI_MIN) || !(p > 0) || !(m >= 0)) {
     out[0] = NaN;
     out[1] = NaN;
     return TABLE_STATUS.DESTROYED;
   }
-  let im = m;
-  if (im > NM - 1) {
-    im = NM - 1;
-    status |= TABLE_STATUS.OUTSIDE;
-  }
-  let pp = p;
-  if (pp < P_MIN - 1e-9) {
-    pp = P_MIN;
-    status |= TABLE_STATUS.OUTSIDE;
-  } else if (pp > P_MAX + 1e-9) {
-    pp = P_MAX;
-    status |= TABLE_STATUS.OUTSIDE;
-  }
-  let jp = Math.floor((pp - P_MIN) / P_STEP);
-  if (jp > NP - 2) jp = NP - 2;
-  if (jp < 0) jp = 0;
-  const wp = (1 / pp - INV_P[jp]!) / (INV_P[jp + 1]! - INV_P[jp]!);
-  const base0 = (im * NP + jp) * NX;
-  const base1 = base0 + NX;
-  if (xi > XI_MAX) {
-    const k = NX - 1;
-    const g1 = (1 - wp) * G[base0 + k]! + wp * G[base1 + k]!;
-    const e1 = (1 - wp) * EE[base0 + k]! + wp * EE[base1 + k]!;
-    const b = (1 - wp) * BB[im * NP + jp]! + wp * BB[im * NP + jp + 1]!;
-    if (!Number.isFinite(g1)) {
-      out[0] = NaN;
-      out[1] = NaN;
-      return status | TABLE_STATUS.DESTROYED;
-    }
-    out[0] = g1 - xi * xi + b * Math.log(xi / XI_MAX);
-    const r = XI_MAX / xi;
-    out[1] = -1 + (e1 + 1) * r * r;
-    return status | TABLE_STATUS.CONTINUED;
-  }
-  let ix: number;
-  if (xi <= XI_SPLIT) {
-    ix = Math.floor((xi - XI_MIN) / FINE_STEP);
-  } else {
-    ix = fineCount - 1 + Math.floor((xi - XI_SPLIT) / COARSE_STEP);
-  }
-  if (ix > NX - 2) ix = NX - 2;
-  if (ix < 0) ix = 0;
-  const x0 = XI[ix]!;
-  const wx = (xi - x0) / (XI[ix + 1]! - x0);
-  const g00 = G[base0 + ix]!;
-  const g01 = G[base0 + ix + 1]!;
-  const g10 = G[base1 + ix]!;
-  const g11 = G[base1 + ix + 1]!;
-  // a corner without a state makes the point destroyed (NaN propagates)
-  const g = (1 - wp) * ((1 - wx) * g00 + wx * g01) + wp * ((1 - wx) * g10 + wx * g11);
-  if (!Number.isFinite(g)) {
+  const br = SCRATCH;
+  tablePBracket(m, p, br);
+  const status = br[4] === 1 ? TABLE_STATUS.OUTSIDE : 0;
+  const y = tableLnWidth(br, xi);
+  if (y !== y) {
+    // a corner without a state (or ξ beyond the end of a column without a state): destroyed
     out[0] = NaN;
     out[1] = NaN;
     return status | TABLE_STATUS.DESTROYED;
   }
-  out[0] = g - xi * xi;
-  out[1] =
-    (1 - wp) * ((1 - wx) * EE[base0 + ix]! + wx * EE[base0 + ix + 1]!) +
-    wp * ((1 - wx) * EE[base1 + ix]! + wx * EE[base1 + ix + 1]!);
-  return status;
+  out[0] = y;
+  out[1] = tableEnergyRatio(br, xi);
+  return xi > XI_MAX ? status | TABLE_STATUS.CONTINUED : status;
 }
+
+const SCRATCH = new Float64Array(5);
 
 /**
  * Lower-level lookups for the per-cell loop: the p bracket is resolved once per
  * state ({@link tablePBracket}), then E_r/ε and ln(Γ/ε) are read separately.
- * `br` holds [base0, base1, wp, mIndex·P + jp, outside(0/1)].
+ * `br` holds [base0, base1, wp, column index c (continuation slopes B[c], B[c + 1]), outside(0/1)].
+ * Across a pole-switch interval (SWITCH[c] = 1) both bases are the nearer column and wp = 0.
  */
 export function tablePBracket(m: number, p: number, br: Float64Array): void {
   let im = m;
@@ -156,13 +135,28 @@ export function tablePBracket(m: number, p: number, br: Float64Array): void {
     pp = P_MAX;
     outside = 1;
   }
-  let jp = Math.floor((pp - P_MIN) / P_STEP);
-  if (jp > NP - 2) jp = NP - 2;
-  if (jp < 0) jp = 0;
-  br[0] = (im * NP + jp) * NX;
+  let k = ((pp - P_MIN) * BINS_PER_UNIT) | 0;
+  if (k < 0) k = 0;
+  else if (k > NB - 1) k = NB - 1;
+  let c = P_LOOKUP[im * NB + k]!;
+  const last = M_START[im + 1]! - 2;
+  while (c < last && P_NODES[c + 1]! <= pp) c++;
+  let wp = (1 / pp - INV_P[c]!) / (INV_P[c + 1]! - INV_P[c]!);
+  if (SWITCH[c] === 1) {
+    // the two columns follow different poles: take the nearer one, never a blend of the two
+    if (wp >= 0.5) c++;
+    br[0] = c * NX;
+    br[1] = c * NX;
+    br[2] = 0;
+    br[3] = c;
+    br[4] = outside;
+    return;
+  }
+  if (wp < 0) wp = 0;
+  br[0] = c * NX;
   br[1] = br[0] + NX;
-  br[2] = (1 / pp - INV_P[jp]!) / (INV_P[jp + 1]! - INV_P[jp]!);
-  br[3] = im * NP + jp;
+  br[2] = wp;
+  br[3] = c;
   br[4] = outside;
 }
 
