@@ -6,7 +6,9 @@ import { useEffect, useRef, useState } from 'react';
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { fetchEventSource, type EventSourceMessage } from '@microsoft/fetch-event-source';
 import { LIVE_EVENT_NAME, type MapDetail, type MapLiveEvent, type SharedLiveEvent, type SharedMapView } from '@fieldbound/shared';
+import { meKey } from './auth';
 import { refreshSession, session } from './client';
+import type { MeView } from './types';
 import { mapKeys } from './maps';
 import { dropPin, pinKeys, storePin, storeReply } from './pins';
 import { viewingLinkKeys } from './viewingLinks';
@@ -199,7 +201,8 @@ export function useLiveMap(mapId: string | undefined, currentVersion: number | u
       onEvent: (raw) => {
         const event = raw as MapLiveEvent;
         applyMapEvent(queryClient, mapId, event);
-        if (event.kind === 'map.saved' && versionRef.current !== undefined && event.version > versionRef.current) {
+        const mine = event.actor !== null && event.actor.id === queryClient.getQueryData<MeView | null>(meKey)?.user.id;
+        if (event.kind === 'map.saved' && !mine && versionRef.current !== undefined && event.version > versionRef.current) {
           setSavedVersion({ version: event.version, by: event.actor?.displayName ?? null });
         }
       },

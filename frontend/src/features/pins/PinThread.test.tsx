@@ -45,7 +45,7 @@ describe('PinThread', () => {
     // A viewer replies but neither resolves nor deletes.
     expect(screen.queryByRole('button', { name: /Resolve/ })).toBeNull();
     expect(screen.queryByRole('button', { name: 'Delete pin' })).toBeNull();
-  });
+  }, 30_000);
 
   it('sends a reply and shows it in the thread without reloading it', async () => {
     let gets = 0;
@@ -61,7 +61,7 @@ describe('PinThread', () => {
     expect(screen.getByRole('heading', { name: '2 replies' })).toBeTruthy();
     expect(calls.filter((c) => c.method === 'POST')).toEqual([{ method: 'POST', path: '/api/pins/p1/replies', body: { body: 'Seen it in the lab too.' } }]);
     expect(gets).toBe(1);
-  });
+  }, 30_000);
 
   it('resolves with the version it read; on 409 shows the current pin and applies the change again on top of it', async () => {
     let patches = 0;
@@ -82,7 +82,7 @@ describe('PinThread', () => {
     expect(screen.getByRole('button', { name: /Reopen/ })).toBeTruthy();
     const sent = calls.filter((c) => c.method === 'PATCH').map((c) => c.body);
     expect(sent).toEqual([{ expectedVersion: 4, status: 'resolved' }, { expectedVersion: 5, status: 'resolved' }]);
-  });
+  }, 30_000);
 
   it('shows the class-change notice and lets the reader note it', async () => {
     fakeApi({ 'GET /api/pins/p1': () => ({ status: 200, body: detail() }) });
@@ -91,5 +91,5 @@ describe('PinThread', () => {
     expect(await screen.findByText('class changed: bound → resonance')).toBeTruthy();
     fireEvent.click(screen.getByRole('button', { name: 'Noted' }));
     expect(onAcknowledge).toHaveBeenCalledTimes(1);
-  });
+  }, 30_000);
 });

@@ -39,13 +39,13 @@ describe('PinsLayer', () => {
     const path = document.querySelector('[data-pin-id="p2"] path')!.getAttribute('d');
     expect(path).toBe('M100.0,225.0L200.0,225.0L200.0,150.0L100.0,150.0Z');
     expect(screen.getByRole('button', { name: 'Candidate band' }).getAttribute('data-status')).toBe('resolved');
-  });
+  }, 30_000);
 
   it('redraws the same physical place after a zoom: the marker moves with the transform', () => {
     const { rerender, props } = renderLayer();
     rerender(<div><PinsLayer {...props} ctx={testContext({ transform: zoomIdentity.translate(-200, -150).scale(2) })} /></div>);
     expect(markerPosition('p1')).toEqual([200, 300]);
-  });
+  }, 30_000);
 
   it('shows the title and the class under the pin on hover, and selects the pin on click', () => {
     const onSelect = vi.fn();
@@ -59,14 +59,14 @@ describe('PinsLayer', () => {
     fireEvent.pointerDown(pin, { button: 0, clientX: 200, clientY: 225 });
     fireEvent.pointerUp(pin, { button: 0, clientX: 200, clientY: 225 });
     expect(onSelect).toHaveBeenCalledWith('p1');
-  });
+  }, 30_000);
 
   it('gives viewers no tools and nothing to drag', () => {
     renderLayer({ selectedId: 'p2' });
     expect(screen.queryByRole('toolbar', { name: 'Pin tools' })).toBeNull();
     expect(document.querySelectorAll('[data-testid="pin-handle"]')).toHaveLength(0);
     expect((screen.getByRole('button', { name: 'Candidate band' }) as unknown as SVGElement).style.cursor).toBe('pointer');
-  });
+  }, 30_000);
 
   it('lets an editor drop a point pin where the map is clicked (in physical units)', () => {
     const onCreate = vi.fn();
@@ -81,7 +81,7 @@ describe('PinsLayer', () => {
     expect(g.at.alpha).toBeCloseTo(1000, 6);
     expect(g.at.fieldTesla).toBeCloseTo(1000, 6);
     expect(onTool).toHaveBeenCalledWith('none');
-  });
+  }, 30_000);
 
   it('lets an editor draw a polygon by clicking corners and closing with Enter; Esc cancels a drawing', () => {
     const onCreate = vi.fn();
@@ -98,7 +98,7 @@ describe('PinsLayer', () => {
     expect(g.vertices.map((v) => [Math.round(v.alpha), Math.round(v.fieldTesla)])).toEqual([[1, 1], [10, 1], [1, 10]]);
     fireEvent.keyDown(window, { key: 'Escape' });
     expect(onTool).toHaveBeenLastCalledWith('none');
-  });
+  }, 30_000);
 
   it('moves a pin by drag for an editor and reports the new physical place once', () => {
     const onChangeGeometry = vi.fn();
@@ -114,7 +114,7 @@ describe('PinsLayer', () => {
     if (g.kind !== 'point') throw new Error('kind changed');
     expect(g.at.alpha).toBeCloseTo(1000, 6);
     expect(g.at.fieldTesla).toBeCloseTo(10, 6);
-  });
+  }, 30_000);
 });
 
 describe('class-change notices', () => {
@@ -139,5 +139,5 @@ describe('class-change notices', () => {
     expect(result.current.notices.size).toBe(0);
     rerender({ regions: regionsWith('B') });
     expect(result.current.notices.get('p1')).toBe('class changed: resonance → bound');
-  });
+  }, 30_000);
 });
