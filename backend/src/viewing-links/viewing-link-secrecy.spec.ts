@@ -43,8 +43,8 @@ async function allTableText(): Promise<Map<string, string>> {
   const tables = (await em.getConnection().execute<{ table_name: string }[]>(`select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE'`)).map((r) => r.table_name);
   const text = new Map<string, string>();
   for (const table of tables) {
-    const rows = await em.getConnection().execute(`select row_to_json(x)::text as j from "${table}" x`);
-    text.set(table, rows.map((r: { j: string }) => r.j).join('\n'));
+    const rows = await em.getConnection().execute<{ j: string }[]>(`select row_to_json(x)::text as j from "${table}" x`);
+    text.set(table, rows.map((r) => r.j).join('\n'));
   }
   return text;
 }
