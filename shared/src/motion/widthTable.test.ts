@@ -7,10 +7,12 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../test/expectClose.js';
 import { GENERATOR_VERSION, SOLVER_VERSION, TABLE_M, TABLE_P, TABLE_XI } from '../../scripts/width-table/tableGrid.js';
+import { scorePoleSwitches } from '../../scripts/width-table/poleSwitches.js';
 import { traceState } from './exact/traceState.js';
 import { powerLawKappa } from './exact/zeroRangeSolver.js';
 import {
   WIDTH_TABLE_GENERATOR,
+  WIDTH_TABLE_E,
   WIDTH_TABLE_G,
   WIDTH_TABLE_M,
   WIDTH_TABLE_M_START,
@@ -30,9 +32,10 @@ const heldOut = JSON.parse(readFileSync(fileURLToPath(new URL('./table/heldOutRe
 
 /**
  * Laboratory regime: e^−45 ≤ Γ/ε ≤ e^−0.5 (the bound/resonance threshold ln(ħ/τε) lies in
- * −16…−28 for ε = 1e-4…5 K and τ = 1 s). Split into narrow resonances (Γ/ε ≤ e^−2), where the
- * 0.2 target applies, and broad ones (e^−2 < Γ/ε ≤ e^−0.5), where overlapping poles of nearly
- * degenerate orbitals make the state itself less sharply defined (measured worst 0.24).
+ * −16…−28 for ε = 1e-4…5 K and τ = 1 s). Split into narrow resonances (Γ/ε ≤ e^−2) and broad ones
+ * (e^−2 < Γ/ε ≤ e^−0.5), both held to the issue's 0.2 in ln Γ. The broad band needed the table
+ * refined in p where the continued pole switches between overlapping resonances (m = 15,
+ * p = 2 … 3.5; generator 1.1.0 --refine, docs/physics/moving-ion.md §4).
  */
 const LAB_MIN = -45;
 const LAB_MAX = -0.5;
@@ -64,6 +67,60 @@ describe('width table metadata', () => {
   });
 });
 
+describe('pole switches between neighbouring p columns', () => {
+  const NX = TABLE_XI.length;
+  const column = (arr: readonly number[], c: number): number[] => arr.slice(c * NX, (c + 1) * NX);
+
+  it('the committed switch flags are the jump detector\'s flagged intervals of width ≤ 0.1 (generator rule), and m = 15 has one between p = 2.83 and 2.84', () => {
+    let switches = 0;
+    for (const m of TABLE_M) {
+      const c0 = WIDTH_TABLE_M_START[m]!;
+      const c1 = WIDTH_TABLE_M_START[m + 1]!;
+      const cols = Array.from({ length: c1 - c0 }, (_, k) => c0 + k);
+      const scores = scorePoleSwitches(
+        cols.map((c) => WIDTH_TABLE_P_NODES[c]!),
+        cols.map((c) => column(WIDTH_TABLE_G, c).map((g, i) => g - TABLE_XI[i]! ** 2)),
+        cols.map((c) => column(WIDTH_TABLE_E, c)),
+        TABLE_XI,
+      );
+      scores.forEach((sc, k) => {
+        const expected = sc.flagged && sc.pHi - sc.pLo <= 0.1 + 1e-9 ? 1 : 0;
+        expect(WIDTH_TABLE_SWITCH[c0 + k], `m=${m} p ${sc.pLo}…${sc.pHi}`).toBe(expected);
+        switches += expected;
+      });
+    }
+    const c = WIDTH_TABLE_P_NODES.findIndex((p, i) => i >= WIDTH_TABLE_M_START[15]! && p === 2.83);
+    expect(WIDTH_TABLE_P_NODES[c + 1]).toBe(2.84);
+    expect(WIDTH_TABLE_SWITCH[c]).toBe(1);
+    expect(switches).toBeGreaterThan(0);
+  });
+
+  it('across a switch interval the evaluator returns the nearer column, never a blend (exact identity at the ξ nodes)', () => {
+    const out = new Float64Array(2);
+    let checked = 0;
+    for (const m of TABLE_M) {
+      for (let c = WIDTH_TABLE_M_START[m]!; c < WIDTH_TABLE_M_START[m + 1]! - 1; c++) {
+        if (WIDTH_TABLE_SWITCH[c] !== 1) continue;
+        const [p0, p1] = [WIDTH_TABLE_P_NODES[c]!, WIDTH_TABLE_P_NODES[c + 1]!];
+        for (const [p, cc] of [
+          [p0 + 0.2 * (p1 - p0), c],
+          [p0 + 0.8 * (p1 - p0), c + 1],
+        ] as const) {
+          for (let i = 0; i < NX; i += 5) {
+            const g = WIDTH_TABLE_G[cc * NX + i]!;
+            if (!Number.isFinite(g)) continue;
+            widthTableInto(m, p, TABLE_XI[i]!, out);
+            expect(out[0], `m=${m} p=${p} ξ=${TABLE_XI[i]}`).toBeCloseTo(g - TABLE_XI[i]! ** 2, 12);
+            expect(out[1], `m=${m} p=${p} ξ=${TABLE_XI[i]}`).toBeCloseTo(WIDTH_TABLE_E[cc * NX + i]!, 12);
+            checked++;
+          }
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(0);
+  });
+});
+
 describe('fast table vs exact solver at held-out points', () => {
   const out = new Float64Array(2);
   const lab = heldOut.points.filter((q) => q.y !== null && !q.unresolved && q.y >= LAB_MIN && q.y <= LAB_MAX);
@@ -77,7 +134,7 @@ describe('fast table vs exact solver at held-out points', () => {
 
   for (const [label, lo, hi, tolY, tolE, minCount] of [
     ['narrow resonances, e^−45 ≤ Γ/ε ≤ e^−2', LAB_MIN, NARROW_MAX, 0.2, 0.06, 30],
-    ['broad resonances, e^−2 < Γ/ε ≤ e^−0.5', NARROW_MAX, LAB_MAX, 0.3, 0.5, 5],
+    ['broad resonances, e^−2 < Γ/ε ≤ e^−0.5', NARROW_MAX, LAB_MAX, 0.2, 0.1, 5],
   ] as const) {
     it(`${label}: |Δ ln Γ| ≤ ${tolY} and |Δ E/ε| ≤ ${tolE} at every held-out point (worst reported)`, () => {
       const pts = lab.filter((q) => q.y! >= lo && q.y! <= hi && !(lo === NARROW_MAX && q.y === NARROW_MAX));
