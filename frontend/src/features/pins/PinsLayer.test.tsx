@@ -39,6 +39,9 @@ describe('PinsLayer', () => {
     const path = document.querySelector('[data-pin-id="p2"] path')!.getAttribute('d');
     expect(path).toBe('M100.0,225.0L200.0,225.0L200.0,150.0L100.0,150.0Z');
     expect(screen.getByRole('button', { name: 'Candidate band' }).getAttribute('data-status')).toBe('resolved');
+    // The inside of an area pin lets clicks through to the map (probe, pan); its edge and title catch the pointer.
+    expect(document.querySelector('[data-pin-id="p2"] path')!.getAttribute('pointer-events')).toBe('none');
+    expect(document.querySelector('[data-pin-id="p2"] path.pin-edge')!.getAttribute('pointer-events')).toBe('stroke');
   }, 30_000);
 
   it('redraws the same physical place after a zoom: the marker moves with the transform', () => {

@@ -222,7 +222,13 @@ export function PinsLayer({ ctx, pins, selectedId, onSelect, regionsByPin, notic
                   <circle cy={-14} r={3} fill={resolved ? stroke : '#fff'} />
                 </g>
               ) : (
-                <path d={pathOf(pts, true)} fill={palette.pin} fillOpacity={selected ? 0.16 : 0.07} stroke={stroke} strokeWidth={sw} strokeDasharray={resolved ? '5 4' : undefined} strokeLinejoin="round" />
+                <>
+                  {/* The inside of an area pin lets clicks and drags through to the map (probe, pan, zoom), except
+                      for the selected pin of an editor, which is moved by dragging its inside. The outline has a wide
+                      invisible edge so it is easy to hover and grab. */}
+                  <path d={pathOf(pts, true)} fill={palette.pin} fillOpacity={selected ? 0.16 : 0.07} stroke={stroke} strokeWidth={sw} strokeDasharray={resolved ? '5 4' : undefined} strokeLinejoin="round" pointerEvents={selected && draggable ? 'visiblePainted' : 'none'} />
+                  <path className="pin-edge" d={pathOf(pts, true)} fill="none" stroke="transparent" strokeWidth={12} pointerEvents="stroke" />
+                </>
               )}
               <text
                 x={anchor[0] + (pin.geometry.kind === 'point' ? 10 * (large ? 1.6 : 1) : 0)}
@@ -234,6 +240,7 @@ export function PinsLayer({ ctx, pins, selectedId, onSelect, regionsByPin, notic
                 stroke="#fff"
                 strokeWidth={large ? 5 : 3}
                 paintOrder="stroke"
+                pointerEvents="visiblePainted"
               >
                 {shortTitle(pin.title, large ? 40 : 28)}
                 {notices.has(pin.id) ? ' ⚠' : ''}
