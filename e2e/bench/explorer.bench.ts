@@ -268,6 +268,7 @@ async function main() {
     `- Runs (first picture / full): ${runs.map((r, k) => `${k === 0 ? 'cold' : `warm ${k}`} ${fmtMs(r.coarseMs)} / ${fmtMs(r.fullMs)}`).join('; ')}.`,
     `- Long tasks per computation: ${runs.map((r) => (r.longTasks.length ? r.longTasks.map((t) => `${Math.round(t.duration)} ms at +${Math.round(t.start)} ms`).join(', ') : 'none')).join(' | ')}.`,
     `- Engine alone in Node (built shared/dist, one thread, best of 2): full ${fmtMs(node.full.total)}; the quick first pass (64², model to 1e-3) ${fmtMs(node.coarse.total)} (model ${fmtMs(node.coarse.prepare)}, phaseMap ${fmtMs(node.coarse.phase)}).`,
+    `- Where the time goes: for thermal ions the engine's phaseMap (two root finds per state for the ensemble fractions) is ${Math.round((100 * node.full.phase) / node.full.total)} % of the engine's single-thread time; the pool splits it by row bands over the workers, and the model is prepared once and shared (the quick first pass prepares its own at 1e-3 on the other worker meanwhile).`,
     pan ? `- Pan and zoom while computing: ${pan.frames} frames in ${pan.seconds.toFixed(2)} s (requestAnimationFrame), worst gap ${Math.round(pan.worstFrameMs)} ms; long tasks in that time: ${pan.longTasks} (longest ${Math.round(pan.worstLongTaskMs)} ms).` : '',
     '<!-- explorer-bench:end -->',
   ]
