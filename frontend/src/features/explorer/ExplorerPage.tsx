@@ -231,7 +231,7 @@ export function ExplorerPage({
   const fullTiming = base.state.timings;
 
   return (
-    <div className="explorer-page" style={{ display: 'flex', height: 'calc(100vh - 48px)', minHeight: 420, background: palette.paper, ...style }}>
+    <div className="explorer-page" style={{ position: 'relative', overflow: 'hidden', display: 'flex', height: 'calc(100vh - 48px)', minHeight: 420, background: palette.paper, ...style }}>
       {panelOpen && !readOnly && (
         <aside aria-label="Setup" style={{ width: 320, flex: 'none', overflowY: 'auto', padding: '8px 14px 24px', borderRight: `1px solid ${palette.unbound}`, background: '#fff' }}>
           <Space style={{ justifyContent: 'space-between', width: '100%' }}>
@@ -284,7 +284,8 @@ export function ExplorerPage({
           {base.motionWanted && !motionApplied && base.state.result ? ' Applying ion motion…' : ''}
         </footer>
       </main>
-      <Drawer title="Probe" placement="right" size={420} open={probe !== null} onClose={() => setProbe(null)} mask={false} destroyOnHidden>
+      {/* Inside the explorer's box (not over the host page's header, whose Save and Export stay reachable). */}
+      <Drawer title="Probe" placement="right" size={420} open={probe !== null} onClose={() => setProbe(null)} mask={false} destroyOnHidden getContainer={false}>
         {probe && <ProbePanel point={probe} setup={applied} pool={workers?.probe ?? null} />}
       </Drawer>
     </div>
