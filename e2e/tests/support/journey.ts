@@ -1,0 +1,101 @@
+// Helpers shared by the user journeys: the demo group (seeded on demand), signing in through the page,
+// the computed-map wait, and the guide's screenshots (written only when FIELDBOUND_SCREENSHOTS=1).
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { expect, type Locator, type Page } from '@playwright/test';
+
+/** The checkout: the nearest directory upwards from where Playwright runs that holds e2e/playwright.config.ts. */
+function findRepoRoot(): string {
+  for (let dir = process.cwd(); ; dir = path.dirname(dir)) {
+    if (fs.existsSync(path.join(dir, 'e2e', 'playwright.config.ts'))) return dir;
+    if (path.dirname(dir) === dir) throw new Error(`cannot find the repository above ${process.cwd()}`);
+  }
+}
+const repoRoot = findRepoRoot();
+
+/** The invented demo group of backend/src/demo (demo-only passwords, public on purpose). */
+export const DEMO = {
+  team: 'Solberg group · field-bound anions (demo)',
+  owner: { email: 'maren.solberg@demo.fieldbound.test', password: 'demo-owner-2026', name: 'Maren Solberg' },
+  editorA: { email: 'kofi.mensah@demo.fieldbound.test', password: 'demo-editor-2026', name: 'Kofi Mensah' },
+  editorB: { email: 'ilse.varga@demo.fieldbound.test', password: 'demo-editor-2026', name: 'Ilse Varga' },
+  viewer: { email: 'tariq.bello@demo.fieldbound.test', password: 'demo-viewer-2026', name: 'Tariq Bello' },
+  lectureToken: 'demo-lecture-link-Solberg-group-anions-2026',
+  maps: {
+    lab: 'Laboratory scan: shortlist at 1–45 T',
+    lab4K: 'Laboratory scan with ion motion at 4 K',
+  },
+} as const;
+
+/**
+ * Seeds the demo group into the end-to-end database when it is not there yet (the seed runs once and is a no-op
+ * afterwards), with the same database settings the server under test got from the environment.
+ */
+export function ensureDemoData(): void {
+  execFileSync(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'database', 'db-cli.js'), 'seed'], { env: process.env, stdio: 'pipe' });
+}
+
+export async function signIn(page: Page, who: { email: string; password: string }): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail address').fill(who.email);
+  await page.getByLabel('Password', { exact: true }).fill(who.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(/\/maps$/, { timeout: 30_000 });
+}
+
+/** Opens a map of the current team from the maps list by its title. */
+export async function openMapByTitle(page: Page, title: string): Promise<void> {
+  await page.goto('/maps');
+  await page.getByRole('link', { name: title, exact: true }).click();
+  await expect(page.getByRole('heading', { name: title })).toBeVisible({ timeout: 60_000 });
+}
+
+/** Waits until the full-resolution map is computed (the status line names the time it took). */
+export async function waitForComputedMap(page: Page): Promise<void> {
+  await expect(page.getByText(/computed in [\d.]+ s/)).toBeVisible({ timeout: 240_000 });
+}
+
+/** The map's plot area (the transparent layer that takes clicks) and the figure's coordinates of things drawn on it. */
+export function mapOverlay(page: Page): Locator {
+  return page.locator('.map-view rect.map-overlay');
+}
+
+/** x of a species marker's line in plot coordinates (the overlay and the figure share the plot's origin). */
+export async function speciesX(page: Page, name: string): Promise<number> {
+  const marker = page.locator('.map-view g.species-marker').filter({ has: page.locator('text', { hasText: new RegExp(`^${name}$`) }) });
+  await expect(marker).toHaveCount(1, { timeout: 30_000 });
+  return Number(await marker.locator('line').getAttribute('x1'));
+}
+
+/** y of the top edge of a field band (its upper field) in plot coordinates. */
+export async function bandTopY(page: Page, label: string): Promise<number> {
+  const band = page.locator('.map-view g.field-bands g').filter({ has: page.locator('text', { hasText: label }) });
+  await expect(band).toHaveCount(1, { timeout: 30_000 });
+  return Number(await band.locator('rect').getAttribute('y'));
+}
+
+/** The guide's screenshots: 1280 × 800 PNGs in docs/guide/img/, taken only when FIELDBOUND_SCREENSHOTS=1. */
+export const screenshotsWanted = process.env.FIELDBOUND_SCREENSHOTS === '1';
+
+export async function guideShot(page: Page, name: string, options: { clip?: Locator } = {}): Promise<void> {
+  if (!screenshotsWanted) return;
+  const dir = path.join(repoRoot, 'docs', 'guide', 'img');
+  fs.mkdirSync(dir, { recursive: true });
+  const file = path.join(dir, `${name}.png`);
+  // Let fonts and the last frame settle; the screenshot is of what a person sees.
+  await page.evaluate(() => document.fonts.ready);
+  if (options.clip) await options.clip.screenshot({ path: file, animations: 'disabled' });
+  else await page.screenshot({ path: file, animations: 'disabled' });
+}
+
+/** The viewport of every journey (also the size of the guide's screenshots). */
+export const VIEWPORT = { width: 1280, height: 800 };
+
+/** The probe's row of orbital m, level ν: its cells' texts and the table's column headers (once the probe has solved). */
+export async function probeRow(page: Page, m: number, nu: number): Promise<{ cells: string[]; headers: string[] }> {
+  const probe = page.getByRole('dialog', { name: 'Probe' });
+  const row = probe.getByRole('row', { name: new RegExp(`^${m} ${nu} `) });
+  await expect(row).toBeVisible({ timeout: 60_000 });
+  return { cells: await row.getByRole('cell').allInnerTexts(), headers: await probe.getByRole('columnheader').allInnerTexts() };
+}
