@@ -115,6 +115,9 @@ describe('region class under a pin', () => {
     const corner = { kind: 'point' as const, at: { alpha: 100, fieldTesla: tesla(1e-6) } };
     expect(regionUnderPin(corner, testRegions(binding, null))?.dominant).toBe('unbound'); // no level there
     expect(regionUnderPin({ kind: 'point', at: { alpha: 1e5, fieldTesla: 1 } }, testRegions(binding, phase))).toBeNull();
+    // The deepest binding energy at the node, in the setup's energy unit (µeV): 10⁻⁶ hartree = 27.2 µeV (CODATA 2018
+    // hartree energy 27.211 386 eV).
+    expect(describeRegion(regionUnderPin(at, testRegions(binding, phase)))).toBe('bound, ε = 27.2 µeV');
   });
 
   it('counts the classes of every node inside a rectangle and names the dominant one', () => {

@@ -1,4 +1,6 @@
-import { SETUP_LIMITS, teslaToAtomic, type PinGeometry, type PinPoint, type Tesla } from '@fieldbound/shared';
+import { SETUP_LIMITS, stateIndex, teslaToAtomic, type PinGeometry, type PinPoint, type Tesla } from '@fieldbound/shared';
+import { ENERGY_UNIT_LABEL, energyToDisplay } from '../map-render/displayUnits';
+import { formatScientific } from '../map-render/formatNumber';
 import { nearestNode, type GridAxis } from '../map-render/gridGeometry';
 import type { MapOverlayContext } from '../map-render/mapOverlay';
 import { regionField, regionName, type RegionName } from '../map-render/regionField';
@@ -115,6 +117,8 @@ export function windowAround(geometry: PinGeometry, ctx: Pick<MapOverlayContext,
 export interface PinRegion {
   dominant: RegionName;
   counts: Record<RegionName, number>;
+  /** Point pins: the deepest binding energy at the node in the setup's energy unit, e.g. "ε = 3.2 µeV". */
+  energy?: string;
 }
 
 const classCache = new WeakMap<ExplorerRegions, Uint8Array>();
@@ -141,6 +145,18 @@ function axesOf(regions: ExplorerRegions): { alpha: GridAxis; field: GridAxis } 
     alpha: { kind: setup.alphaAxis.scale, first: binding.alphas[0], last: binding.alphas[binding.nAlpha - 1], n: binding.nAlpha },
     field: { kind: setup.fieldAxis.scale, first: binding.fieldsAu[0], last: binding.fieldsAu[binding.nField - 1], n: binding.nField },
   };
+}
+
+/** Deepest binding energy (hartree) at a cell: of the shown orbital, or of any orbital for the survivors view. */
+function deepestBinding(regions: ExplorerRegions, cell: number): number {
+  const { binding, shown } = regions;
+  const orbitals = shown.kind === 'orbital' ? [shown.m] : Array.from({ length: binding.mMax + 1 }, (_, m) => m);
+  let best = 0;
+  for (const m of orbitals) {
+    if (m > binding.mMax || binding.levelsPerOrbital === 0 || binding.counts[m * binding.cellCount + cell] === 0) continue;
+    best = Math.max(best, binding.bindingHartree[stateIndex(m, 0, cell, binding.levelsPerOrbital, binding.cellCount)]);
+  }
+  return best;
 }
 
 const fieldAu = (tesla: number) => teslaToAtomic(tesla as Tesla) as number;
@@ -170,7 +186,12 @@ export function regionUnderPin(geometry: PinGeometry, regions: ExplorerRegions):
     const c = at(geometry.at.alpha, geometry.at.fieldTesla);
     if (c < 0) return null;
     counts[regionName(c)]++;
-    return verdict();
+    const i = nearestNode(axes.alpha, geometry.at.alpha);
+    const j = nearestNode(axes.field, fieldAu(geometry.at.fieldTesla));
+    const e = deepestBinding(regions, j * nA + i);
+    const unit = regions.setup.display.energyUnit;
+    const found = verdict()!;
+    return e > 0 ? { ...found, energy: `ε = ${formatScientific(energyToDisplay(e, unit), { digits: 3 })} ${ENERGY_UNIT_LABEL[unit]}` } : found;
   }
   const fa = axes.alpha.kind === 'log' ? Math.log10 : (v: number) => v;
   const ff = axes.field.kind === 'log' ? Math.log10 : (v: number) => v;
@@ -202,6 +223,7 @@ export function regionUnderPin(geometry: PinGeometry, regions: ExplorerRegions):
 /** "bound", or "mostly bound (62 %), also resonance" for an area that covers several classes. */
 export function describeRegion(region: PinRegion | null): string {
   if (!region) return 'outside the computed map';
+  if (region.energy) return `${region.dominant}, ${region.energy}`;
   const total = region.counts.unbound + region.counts.resonance + region.counts.bound;
   const others = CLASS_NAMES.filter((n) => n !== region.dominant && region.counts[n] > 0);
   if (others.length === 0) return region.dominant;
