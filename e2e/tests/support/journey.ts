@@ -84,7 +84,8 @@ export async function guideShot(page: Page, name: string, options: { clip?: Loca
   fs.mkdirSync(dir, { recursive: true });
   const file = path.join(dir, `${name}.png`);
   // Let fonts and the last frame settle; the screenshot is of what a person sees.
-  await page.evaluate(() => document.fonts.ready);
+  // (The e2e project has no DOM typings: the page's document is reached through globalThis.)
+  await page.evaluate(() => (globalThis as unknown as { document: { fonts: { ready: Promise<unknown> } } }).document.fonts.ready.then(() => true));
   if (options.clip) await options.clip.screenshot({ path: file, animations: 'disabled' });
   else await page.screenshot({ path: file, animations: 'disabled' });
 }
