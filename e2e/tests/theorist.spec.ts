@@ -69,7 +69,7 @@ test('a theorist computes a laboratory map, finds magnesium bound at 20 T with t
   expect(microEv).toBeLessThan(85);
   await guideShot(page, 'probe');
 
-  // Close the probe (its drawer covers the top bar), then save: species and the band are part of the setup.
+  // Close the probe, then save: species and the band are part of the setup.
   await page.getByRole('dialog', { name: 'Probe' }).getByRole('button', { name: 'Close' }).click();
   await expect(page.getByRole('dialog', { name: 'Probe' })).toHaveCount(0);
   await expect(page.getByTestId('save-state')).toContainText('Unsaved changes');

@@ -92,7 +92,7 @@ describe('the demo answers the guide’s question (4 K ion motion, 20 T)', () =>
 });
 
 describe('the demo pins leave the guide’s probe points free', () => {
-  // A region pin takes the clicks inside it, so none may cover a point the guide asks the reader to probe.
+  // The guide's screenshots and steps show these points; no area pin should lie over them.
   const probed: { map: (typeof DEMO_MAPS)[number]['key']; symbol: string; tesla: number }[] = [
     { map: 'lab4K', symbol: 'Mg', tesla: 20 },
     { map: 'lab4K', symbol: 'Cd', tesla: 20 },

@@ -89,7 +89,7 @@ export const DEMO_PINS: DemoPin[] = [
     title: 'Caveat: m = 0 is cutoff-dominated here',
     body: 'Above α/r_c² ≈ 1 the m = 0 binding depends on r_c more than on anything else. Quote m = 0 numbers only with the band from r_c/2 to 2 r_c.',
     category: 'caveat',
-    // A point in a quiet corner: a pin over the whole map would stand between the reader and the probe.
+    // A point in a quiet corner: a box over the whole map would cover every point the guide probes.
     geometry: { kind: 'point', at: { alpha: 400, fieldTesla: 3 } },
     replies: [],
   },
