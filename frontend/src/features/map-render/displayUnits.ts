@@ -21,13 +21,13 @@ export function alphaToDisplay(alphaAu: number, unit: AlphaUnit): number {
 export function alphaFromDisplay(value: number, unit: AlphaUnit): number {
   return toAtomicPolarizability(unit, value);
 }
-/** B: tesla → the display unit (T or atomic units). */
+/** B: tesla → the display unit (T or atomic units). Tesla passes through untouched (a round trip through atomic units would turn 20 T into 19.999999999999996 T). */
 export function fieldTeslaToDisplay(teslaValue: number, unit: FieldUnit): number {
-  return fieldTo(unit, teslaToAtomic(teslaValue as Tesla));
+  return unit === 'T' ? teslaValue : fieldTo(unit, teslaToAtomic(teslaValue as Tesla));
 }
 /** B: the display unit → tesla. */
 export function fieldDisplayToTesla(value: number, unit: FieldUnit): number {
-  return atomicToTesla(toAtomicField(unit, value));
+  return unit === 'T' ? value : atomicToTesla(toAtomicField(unit, value));
 }
 /** B: atomic units → the display unit. */
 export function fieldAuToDisplay(fieldAu: number, unit: FieldUnit): number {
