@@ -8,6 +8,7 @@ import { conflictOf, storeMap, useMap, usePutSummary, usePutThumbnail, useRestor
 import { useTeamSpecies } from '../api/species';
 import { useCurrentTeam } from '../state/currentTeam';
 import { ExplorerPage, type ExplorerComputed } from '../features/explorer/ExplorerPage';
+import { motionKey } from '../features/explorer/hooks/useMapComputation';
 import type { SpeciesMarker } from '../features/explorer/MapView';
 import { ExportMenu } from '../features/export';
 import { ConflictModal } from '../features/maps/ConflictModal';
@@ -247,6 +248,7 @@ function MapEditor({ map }: { map: MapDetail }) {
           <ExportMenu
             setup={exportSetup}
             bindingMap={computed?.result ?? null}
+            phaseMap={computed?.phase && computed.phaseMotionKey === motionKey(exportSetup) ? computed.phase : null}
             title={map.title}
             getFigureSvg={() => explorerBox.current?.querySelector<SVGSVGElement>('.map-view svg[role="img"]') ?? null}
           />

@@ -15,7 +15,7 @@ import { MapLegend } from './MapLegend';
 import { MapView, gridAxesOf, type MapLayerInput, type SpeciesMarker } from './MapView';
 import { ProbePanel } from './ProbePanel';
 import { SetupPanel } from './SetupPanel';
-import { createMapCaches, useMapComputation } from './hooks/useMapComputation';
+import { createMapCaches, motionKey, useMapComputation } from './hooks/useMapComputation';
 import { useLayerGeometry, type LayerGeometry } from './hooks/useLayerGeometry';
 import { readoutAt } from './mapReadout';
 import { checkDraft, type SetupDraft } from './setupDraft';
@@ -61,6 +61,9 @@ export interface ExplorerComputed {
   setup: MapSetup;
   result: BindingMapResult;
   fullMs: number | null;
+  /** Moving-ion classes of `result` (null for a fixed atom), for the ion-motion settings `phaseMotionKey` (see `motionKey`). */
+  phase: PhaseMapResult | null;
+  phaseMotionKey: string | null;
 }
 
 const NO_SPECIES: readonly SpeciesMarker[] = [];
@@ -125,10 +128,14 @@ export function ExplorerPage({
   useEffect(() => onSetupChange?.(validDraft), [validDraft, onSetupChange]);
   const { status: baseStatus, result: baseResult, resultSetup: baseResultSetup, resultPass: basePass } = base.state;
   const baseFullMs = base.state.timings.fullMs;
+  // Reported again when the moving-ion classes arrive or change (motion settings reuse the binding map).
+  const basePhase = base.motionWanted ? base.phase : null;
+  const basePhaseKey = basePhase ? motionKey(applied) : null;
   useEffect(() => {
     // As a transition: what the host page does with a finished map (summary, export state) renders in slices.
-    if (baseStatus === 'done' && basePass === 'full' && baseResult && baseResultSetup) startTransition(() => onComputed?.({ setup: baseResultSetup, result: baseResult, fullMs: baseFullMs }));
-  }, [baseStatus, basePass, baseResult, baseResultSetup, baseFullMs, onComputed]);
+    if (baseStatus === 'done' && basePass === 'full' && baseResult && baseResultSetup)
+      startTransition(() => onComputed?.({ setup: baseResultSetup, result: baseResult, fullMs: baseFullMs, phase: basePhase, phaseMotionKey: basePhaseKey }));
+  }, [baseStatus, basePass, baseResult, baseResultSetup, baseFullMs, basePhase, basePhaseKey, onComputed]);
 
   const shown = applied.display.shown;
   const levels = applied.contours.levelsKelvin;
