@@ -39,6 +39,8 @@ export class MapRepository extends EntityRepository<SavedMap> {
     const orderBy = query.sort === 'title' ? { title: query.order, id: 'asc' } : { [query.sort]: query.order, id: 'asc' };
     return this.findAndCount(where as FilterQuery<SavedMap>, {
       populate: ['createdBy', 'updatedBy', 'summary', 'summary.computedBy', 'thumbnail'],
+      // All to-one: one joined query instead of a select-in query per relation (the list is the busiest read).
+      strategy: 'joined',
       orderBy: orderBy as never,
       limit: query.limit,
       offset: query.offset,
