@@ -254,3 +254,32 @@ export function tableXiAtLnWidth(br: Float64Array, lnT: number): number {
   }
   return XI_MIN;
 }
+
+/**
+ * The evaluator's typed arrays and grid constants, for a fused per-state loop that repeats
+ * {@link tablePBracket}, {@link tableEnergyRatio} and {@link tableLnWidth} step for step
+ * (classifyCells.ts; its test checks the two give the same bits). Read-only.
+ */
+export const WIDTH_TABLE_INTERNALS = {
+  G,
+  EE,
+  BB,
+  M_START,
+  INV_P,
+  P_NODES,
+  SWITCH,
+  XI,
+  P_LOOKUP,
+  NM,
+  NX,
+  NB,
+  BINS_PER_UNIT,
+  P_MIN,
+  P_MAX,
+  XI_MIN,
+  XI_MAX,
+  XI_SPLIT,
+  FINE_STEP,
+  COARSE_STEP,
+  FINE_COUNT: fineCount,
+} as const;
