@@ -210,65 +210,72 @@ export function classifyCells(map: CellBindings, settings: MotionSettings, out: 
           // stateWidthCore with tablePBracket / tableEnergyRatio / recoilStretch / tableLnWidth inlined, step for step
           let flags = e < adiabaticLimit ? F_NON_ADIABATIC : 0;
           const xi = (e * sqrtB) / F;
-          let k = ((p - T_P_MIN) * T_BINS_PER_UNIT) | 0;
-          if (k < 0) k = 0;
-          else if (k > T_NB - 1) k = T_NB - 1;
-          let col = T_P_LOOKUP[lookupBase + k]!;
-          while (col < lastCol && T_P_NODES[col + 1]! <= p) col++;
-          let wp = (1 / p - T_INV_P[col]!) / (T_INV_P[col + 1]! - T_INV_P[col]!);
-          let b0: number;
-          let b1: number;
-          if (T_SWITCH[col] === 1) {
-            if (wp >= 0.5) col++;
-            b0 = col * T_NX;
-            b1 = b0;
-            wp = 0;
-          } else {
-            if (wp < 0) wp = 0;
-            b0 = col * T_NX;
-            b1 = b0 + T_NX;
-          }
-          const wq = 1 - wp;
-          let er: number;
-          if (!(xi >= T_XI_MIN)) er = NaN;
-          else if (xi > T_XI_MAX) {
-            const e1 = wq * T_EE[b0 + T_NX - 1]! + wp * T_EE[b1 + T_NX - 1]!;
-            const r = T_XI_MAX / xi;
-            er = -1 + (e1 + 1) * r * r;
-          } else {
-            const ix = xiIndex(xi);
-            const x0 = T_XI[ix]!;
-            const wx = (xi - x0) / (T_XI[ix + 1]! - x0);
-            er = wq * ((1 - wx) * T_EE[b0 + ix]! + wx * T_EE[b0 + ix + 1]!) + wp * ((1 - wx) * T_EE[b1 + ix]! + wx * T_EE[b1 + ix + 1]!);
-          }
-          const bindingShifted = er === er ? -er * e : e;
-          const a = (bindingShifted - shiftOmega) / ePerp;
           let g: number;
-          if (a >= 1) {
-            g = 0;
-            flags |= F_CHANNEL_CLOSED;
-          } else if (a < 1) {
-            const ratio = Math.abs(a) < 1e-3 ? 1 + a * (2 / 3 + a * (0.5 + a * 0.4)) : (2 * (-Math.log1p(-a) / a - 1)) / a;
-            const xe = xi * Math.sqrt(ratio);
-            let y: number;
-            if (!(xe >= T_XI_MIN)) y = NaN;
-            else if (xe > T_XI_MAX) {
-              const g1 = wq * T_G[b0 + T_NX - 1]! + wp * T_G[b1 + T_NX - 1]!;
-              const bs = wq * T_BB[col]! + wp * T_BB[col + 1]!;
-              y = g1 - xe * xe + bs * Math.log(xe / T_XI_MAX);
-            } else {
-              const ix = xiIndex(xe);
-              const x0 = T_XI[ix]!;
-              const wx = (xe - x0) / (T_XI[ix + 1]! - x0);
-              y = wq * ((1 - wx) * T_G[b0 + ix]! + wx * T_G[b0 + ix + 1]!) + wp * ((1 - wx) * T_G[b1 + ix]! + wx * T_G[b1 + ix + 1]!) - xe * xe;
-            }
-            if (y !== y) {
-              g = Infinity;
-              flags |= F_DESTROYED;
-            } else g = e * Math.exp(y);
+          if (!(xi >= T_XI_MIN) && (e - shiftOmega) / ePerp <= 0) {
+            // below the table with a ≤ 0 (no Stark shift there: E_r is NaN): the recoil stretch is ≤ 1, so
+            // ξ_eff ≤ ξ is below the table too and the state is destroyed; the same result without the lookups
+            g = Infinity;
+            flags |= F_DESTROYED;
           } else {
-            classifyStateSlow(eps, idx, nu * cellCount + c, stride, mMax, m, c, e, B, sqrtB, F, ePerp, omega, M, hbarOverTau, settings.kT, out);
-            continue;
+            let k = ((p - T_P_MIN) * T_BINS_PER_UNIT) | 0;
+            if (k < 0) k = 0;
+            else if (k > T_NB - 1) k = T_NB - 1;
+            let col = T_P_LOOKUP[lookupBase + k]!;
+            while (col < lastCol && T_P_NODES[col + 1]! <= p) col++;
+            let wp = (1 / p - T_INV_P[col]!) / (T_INV_P[col + 1]! - T_INV_P[col]!);
+            let b0: number;
+            let b1: number;
+            if (T_SWITCH[col] === 1) {
+              if (wp >= 0.5) col++;
+              b0 = col * T_NX;
+              b1 = b0;
+              wp = 0;
+            } else {
+              if (wp < 0) wp = 0;
+              b0 = col * T_NX;
+              b1 = b0 + T_NX;
+            }
+            const wq = 1 - wp;
+            let er: number;
+            if (!(xi >= T_XI_MIN)) er = NaN;
+            else if (xi > T_XI_MAX) {
+              const e1 = wq * T_EE[b0 + T_NX - 1]! + wp * T_EE[b1 + T_NX - 1]!;
+              const r = T_XI_MAX / xi;
+              er = -1 + (e1 + 1) * r * r;
+            } else {
+              const ix = xiIndex(xi);
+              const x0 = T_XI[ix]!;
+              const wx = (xi - x0) / (T_XI[ix + 1]! - x0);
+              er = wq * ((1 - wx) * T_EE[b0 + ix]! + wx * T_EE[b0 + ix + 1]!) + wp * ((1 - wx) * T_EE[b1 + ix]! + wx * T_EE[b1 + ix + 1]!);
+            }
+            const bindingShifted = er === er ? -er * e : e;
+            const a = (bindingShifted - shiftOmega) / ePerp;
+            if (a >= 1) {
+              g = 0;
+              flags |= F_CHANNEL_CLOSED;
+            } else if (a < 1) {
+              const ratio = Math.abs(a) < 1e-3 ? 1 + a * (2 / 3 + a * (0.5 + a * 0.4)) : (2 * (-Math.log1p(-a) / a - 1)) / a;
+              const xe = xi * Math.sqrt(ratio);
+              let y: number;
+              if (!(xe >= T_XI_MIN)) y = NaN;
+              else if (xe > T_XI_MAX) {
+                const g1 = wq * T_G[b0 + T_NX - 1]! + wp * T_G[b1 + T_NX - 1]!;
+                const bs = wq * T_BB[col]! + wp * T_BB[col + 1]!;
+                y = g1 - xe * xe + bs * Math.log(xe / T_XI_MAX);
+              } else {
+                const ix = xiIndex(xe);
+                const x0 = T_XI[ix]!;
+                const wx = (xe - x0) / (T_XI[ix + 1]! - x0);
+                y = wq * ((1 - wx) * T_G[b0 + ix]! + wx * T_G[b0 + ix + 1]!) + wp * ((1 - wx) * T_G[b1 + ix]! + wx * T_G[b1 + ix + 1]!) - xe * xe;
+              }
+              if (y !== y) {
+                g = Infinity;
+                flags |= F_DESTROYED;
+              } else g = e * Math.exp(y);
+            } else {
+              classifyStateSlow(eps, idx, nu * cellCount + c, stride, mMax, m, c, e, B, sqrtB, F, ePerp, omega, M, hbarOverTau, settings.kT, out);
+              continue;
+            }
           }
           const code = g < hbarOverTau ? SC_BOUND : flags & F_DESTROYED || !(g < e) ? SC_UNBOUND : SC_RESONANCE;
           stateClass[idx] = code;
