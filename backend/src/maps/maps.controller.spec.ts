@@ -261,6 +261,12 @@ describe('maps: list, summary and thumbnail', () => {
     expect(await titles('tag=kr')).toEqual(['Noble gases']);
     expect(await titles('sort=title&order=desc')).toEqual(['Rubidium sweep', 'Noble gases', 'Alkali overview']);
     expect(await titles('search=50%25')).toEqual([]);
+    // total counts every match, not just the page (the count runs as its own query with the same filter).
+    const page = async (q: string) => (await call('GET', `/teams/${team}/maps?${q}`, { as: cast.owner })).body;
+    expect(await page('search=rb&limit=1&sort=title')).toMatchObject({ total: 2, items: [{ title: 'Alkali overview' }] });
+    expect(await page('tag=rb&limit=1&offset=1&sort=title')).toMatchObject({ total: 2, items: [{ title: 'Rubidium sweep' }] });
+    expect(await page('limit=2')).toMatchObject({ total: 3 });
+    expect(await page('search=xenon')).toEqual({ items: [], total: 0 });
     expect((await call('GET', `/teams/${team}/maps?sort=colour`, { as: cast.owner })).status).toBe(400);
   });
 
