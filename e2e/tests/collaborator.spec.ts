@@ -53,7 +53,8 @@ test('a collaborator pins a region of a teammate’s map, the teammate replies, 
   await signIn(ilse, DEMO.editorB);
   await openMapByTitle(ilse, TEAMMATES_MAP);
   await waitForComputedMap(ilse);
-  await ilse.getByRole('button', { name: pinTitle }).click();
+  // An area pin is clicked by its title or outline: its inside belongs to the map (probe, pan, zoom).
+  await ilse.getByRole('button', { name: pinTitle }).locator('text').click();
   const ilseThread = ilse.getByRole('article', { name: `Thread: ${pinTitle}` });
   await expect(ilseThread).toContainText('Kofi Mensah');
   const reply = 'Mostly bound here, fully bound on the r_c = 2 a₀ map: the edge moves with the cutoff. Quote both maps.';
@@ -65,7 +66,7 @@ test('a collaborator pins a region of a teammate’s map, the teammate replies, 
   // Kofi sees the reply (after a reload at the latest) and resolves the thread.
   await page.reload();
   await expect(page.getByRole('heading', { name: TEAMMATES_MAP })).toBeVisible({ timeout: 60_000 });
-  await page.getByRole('button', { name: pinTitle }).click();
+  await page.getByRole('button', { name: pinTitle }).locator('text').click();
   const again = page.getByRole('article', { name: `Thread: ${pinTitle}` });
   await expect(again.getByRole('list', { name: 'Replies' }).getByText(reply)).toBeVisible({ timeout: 30_000 });
   await expect(again).toContainText('Ilse Varga');
