@@ -1,5 +1,4 @@
-import path from 'node:path';
-import { pathToFileURL } from 'node:url';
+import { defaultSetup } from '@fieldbound/shared';
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from '@playwright/test';
 
 // Collaboration on a map with two people at once: an editor pins a region and a viewer of the team sees it appear
@@ -13,11 +12,13 @@ test.describe.configure({ timeout: 300_000 });
 const unique = () => Math.random().toString(36).slice(2, 10);
 const PASSWORD = 'field-induced anions';
 
-/** The engine's default setup, from the built shared package (the server validates it the same way). */
+/**
+ * The engine's default setup (the server validates it the same way). Imported like every other spec imports the
+ * shared package: a second, ESM-style import of its built files next to Playwright's transformed copy fails.
+ */
 async function smallSetup(): Promise<Record<string, unknown>> {
-  const shared = (await import(pathToFileURL(path.resolve(__dirname, '../../shared/dist/index.js')).href)) as { defaultSetup: () => Record<string, unknown> };
   // A small grid and few orbitals: quick to compute in the browser, still a real map.
-  return { ...shared.defaultSetup(), grid: { nAlpha: 48, nField: 48 }, orbitals: { mMax: 1 } };
+  return { ...defaultSetup(), grid: { nAlpha: 48, nField: 48 }, orbitals: { mMax: 1 } };
 }
 
 async function register(request: APIRequestContext, name: string, email: string): Promise<string> {

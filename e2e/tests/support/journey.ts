@@ -29,11 +29,12 @@ export const DEMO = {
 } as const;
 
 /**
- * Seeds the demo group into the end-to-end database when it is not there yet (the seed runs once and is a no-op
- * afterwards), with the same database settings the server under test got from the environment.
+ * Seeds the demo group into the end-to-end database as new (`seed --reset`), with the same database settings the
+ * server under test got from the environment: specs that save a demo map (explorer) must not change what a later
+ * spec reads (guide).
  */
 export function ensureDemoData(): void {
-  execFileSync(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'database', 'db-cli.js'), 'seed'], { env: process.env, stdio: 'pipe' });
+  execFileSync(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'database', 'db-cli.js'), 'seed', '--reset'], { env: process.env, stdio: 'pipe' });
 }
 
 export async function signIn(page: Page, who: { email: string; password: string }): Promise<void> {
