@@ -137,7 +137,11 @@ function MapEditor({ map }: { map: MapDetail }) {
     [update, map.version, map.title, map.setup, current, message],
   );
 
-  const onSaveSetup = useCallback((setup: MapSetup) => save({ setup }), [save]);
+  // Stable (the latest `save` read through a ref): the memoised explorer is not re-rendered by the page's own state.
+  const saveRef = useRef(save);
+  saveRef.current = save;
+  const onSaveSetup = useCallback((setup: MapSetup) => saveRef.current({ setup }), []);
+  const explorerStyle = useMemo(() => ({ height: `calc(100vh - 48px - ${BAR_HEIGHT}px)` }), []);
 
   // Exports describe the figure as drawn: the current setup while it shares the computed binding map (species, field
   // bands, display and contours change without recomputing), else the setup that was computed.
@@ -269,7 +273,7 @@ function MapEditor({ map }: { map: MapDetail }) {
           onSetupChange={setCurrent}
           onComputed={setComputed}
           overlay={pins.overlay}
-          style={{ height: `calc(100vh - 48px - ${BAR_HEIGHT}px)` }}
+          style={explorerStyle}
         />
       </div>
       {pins.drawer}

@@ -5,7 +5,8 @@ import {
   evaluateBindingMapRows, levels, motionSettingsFromSetup, motionStates, phaseMap, prepareBindingMap,
   type BindingMapModel, type BindingMapResult, type LevelsInput, type MapSetup, type PhaseMapResult,
 } from '@fieldbound/shared';
-import type { EngineWorkerApi, MapRowsResult } from './engineContract';
+import { rowBuffers, type EngineWorkerApi, type MapRowsResult } from './engineContract';
+import { joinRowResults } from './mergePhases';
 import { probeMotionInputs } from './probeMotion';
 
 /** Progress messages at most every 50 ms: each one is a postMessage to the page. */
@@ -46,6 +47,25 @@ const api: EngineWorkerApi = {
     report({ done: binding.cellCount, total: binding.cellCount });
     const result: MapRowsResult = { binding, phase };
     return transfer(result, [...bindingBuffers(binding), ...(phase ? phaseBuffers(phase) : [])]);
+  },
+  async computeRows(setup: MapSetup, tolerance: number | undefined, motionSetup: MapSetup | null, onProgress: (cellsDone: number) => void) {
+    const report = throttled(onProgress);
+    const total = setup.grid.nAlpha * setup.grid.nField;
+    // Preparation counts as 40 % of the cells, as in the pool's split computation.
+    const model = prepareBindingMap(setup, { tolerance, onProgress: (p) => report({ done: Math.floor(0.4 * p.done), total }) });
+    const window = evaluateBindingMapRows(model, 0, setup.grid.nField, { onProgress: (p) => report({ done: Math.floor(0.4 * total + 0.3 * p.done), total }) });
+    const { rowStart: _s, rowEnd: _e, ...binding } = window;
+    void _s;
+    void _e;
+    const phase = motionSetup && motionSettingsFromSetup(motionSetup) ? phaseMap(motionSetup, binding) : null;
+    report({ done: total, total });
+    const result: MapRowsResult = { binding, phase };
+    // The model is dropped here, so `alphas` (shared with it) is transferred too.
+    return transfer(result, rowBuffers([result]));
+  },
+  async joinRows(parts: MapRowsResult[]) {
+    const joined = joinRowResults(parts);
+    return transfer(joined, rowBuffers([joined]));
   },
   async phaseRows(setup: MapSetup, binding: BindingMapResult) {
     const phase = phaseMap(setup, binding);

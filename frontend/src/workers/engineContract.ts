@@ -32,10 +32,32 @@ export interface EngineWorkerApi {
    * of those rows when `motionSetup` asks for ion motion (`phaseMap(motionSetup, rows)`); reports cells done.
    */
   evaluateRows(model: BindingMapModel, rowStart: number, rowEnd: number, motionSetup: MapSetup | null, onProgress: (cellsDone: number) => void): Promise<MapRowsResult>;
+  /**
+   * A whole (small) map in one call: `prepareBindingMap` to `tolerance`, every row, and the moving-ion classes when
+   * `motionSetup` asks for ion motion. The quick first pass uses it: no round trip through the page between the
+   * model and the rows, so a busy page never delays the first picture.
+   */
+  computeRows(setup: MapSetup, tolerance: number | undefined, motionSetup: MapSetup | null, onProgress: (cellsDone: number) => void): Promise<MapRowsResult>;
+  /**
+   * Joins row bands (lowest field first) into one map (`mergeBands`, `mergePhases`). Done in a worker so the page
+   * never allocates and copies the full map's arrays itself; the bands' buffers are transferred in and the joined
+   * map's out.
+   */
+  joinRows(parts: MapRowsResult[]): Promise<MapRowsResult>;
   /** Moving-ion classes of rows already computed (`phaseMap(setup, binding)`): binding energies are never recomputed. */
   phaseRows(setup: MapSetup, binding: BindingMapResult): Promise<PhaseMapResult>;
   /** Every state at one point (the probe), with `motionStates` for the setup's ion motion. */
   probeAt(input: LevelsInput, motionSetup: MapSetup): Promise<ProbeResult>;
+}
+
+/** Every distinct ArrayBuffer of some row results (for a transfer list, which must not name a buffer twice). */
+export function rowBuffers(parts: readonly MapRowsResult[], { alphas = true }: { alphas?: boolean } = {}): ArrayBuffer[] {
+  const out = new Set<ArrayBuffer>();
+  for (const { binding, phase } of parts) {
+    for (const a of [binding.fieldsAu, binding.bindingHartree, binding.counts, binding.flags, ...(alphas ? [binding.alphas] : [])]) out.add(a.buffer as ArrayBuffer);
+    if (phase) for (const a of [phase.stateClass, phase.widthHartree, phase.widthFlags, phase.survivors, ...(phase.fractions ? [phase.fractions] : [])]) out.add(a.buffer as ArrayBuffer);
+  }
+  return [...out];
 }
 
 /** Why a computation did not finish. */

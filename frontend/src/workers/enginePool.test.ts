@@ -1,7 +1,8 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { STATE_CLASS, defaultSetup, type BindingMapResult, type MapProgress, type MapSetup } from '@fieldbound/shared';
 import { EnginePool, defaultPoolSize } from './enginePool';
-import { MapComputeError } from './engineContract';
+import { MapComputeError, type MapRowsResult } from './engineContract';
+import { joinRowResults } from './mergePhases';
 import { FakeEngineWorker, ThrowingWorker, fakeEngineApi } from './fakeWorkers';
 
 const setup = { ...defaultSetup(), grid: { nAlpha: 4, nField: 10 } };
@@ -116,6 +117,49 @@ function countingApi(calls: Record<string, number>) {
   };
   return { prepareMap: count('prepareMap', api.prepareMap), evaluateRows: count('evaluateRows', api.evaluateRows), phaseRows: count('phaseRows', api.phaseRows) };
 }
+
+describe('EnginePool: the quick pass and the join', () => {
+  it('computes a single band (the quick first pass) in one computeRows call, with its tolerance and motion', async () => {
+    const seen: { tolerance: number | undefined; motion: boolean }[] = [];
+    const api = fakeEngineApi();
+    // No prepareMap / evaluateRows of its own: a split computation on this worker would fail.
+    const quickOnly = {
+      computeRows: async (s: MapSetup, tolerance: number | undefined, motionSetup: MapSetup | null, onProgress: (cells: number) => void) => {
+        seen.push({ tolerance, motion: motionSetup !== null });
+        const model = await api.prepareMap(s, tolerance, () => {});
+        return api.evaluateRows(model, 0, s.grid.nField, motionSetup, onProgress);
+      },
+    };
+    pool = new EnginePool({ createWorker: () => new FakeEngineWorker(quickOnly) as unknown as Worker, size: 2 });
+    const moving: MapSetup = { ...setup, motion: { kind: 'temperature', kelvin: 4 } };
+    const progress: MapProgress[] = [];
+    const { binding, phase } = await pool.computeMap(moving, { timeoutMs: 5000, bands: 1, tolerance: 1e-3, motionSetup: moving, onProgress: (p) => progress.push(p) });
+    expect(seen).toEqual([{ tolerance: 1e-3, motion: true }]);
+    expect(binding.nField).toBe(10);
+    expect(phase!.survivors).toHaveLength(40);
+    expect(progress.at(-1)).toEqual({ done: 40, total: 40 });
+  });
+
+  it('joins the row bands in a worker (one joinRows call) into the same map as joined in row order', async () => {
+    const calls: Record<string, number> = {};
+    const counted = countingApi(calls);
+    pool = new EnginePool({
+      size: 2,
+      createWorker: () =>
+        new FakeEngineWorker({
+          ...counted,
+          joinRows: async (parts: MapRowsResult[]) => {
+            calls.joinRows = (calls.joinRows ?? 0) + 1;
+            return joinRowResults(parts);
+          },
+        }) as unknown as Worker,
+    });
+    const { binding } = await pool.computeMap(setup, { timeoutMs: 5000 });
+    expect(calls).toEqual({ prepareMap: 1, evaluateRows: 4, joinRows: 1 });
+    expect(Array.from(binding.fieldsAu)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]);
+    for (let j = 0; j < 10; j++) expect(binding.bindingHartree[j * 4]).toBeCloseTo((j + 1) * 1e-9, 20);
+  });
+});
 
 describe('EnginePool with ion motion', () => {
   const moving: MapSetup = { ...setup, motion: { kind: 'temperature', kelvin: 4 } };

@@ -1,7 +1,6 @@
 import { wrap, proxy, transfer, type Remote } from 'comlink';
 import type { BindingMapModel, BindingMapResult, MapProgress, MapSetup, PhaseMapResult } from '@fieldbound/shared';
-import { MapComputeError, toComputeError, type EngineWorkerApi, type MapRowsResult } from './engineContract';
-import { mergeBands } from './mergeBands';
+import { MapComputeError, rowBuffers, toComputeError, type EngineWorkerApi, type MapRowsResult } from './engineContract';
 import { mergePhases, sliceRows } from './mergePhases';
 import { splitRows } from './rowBands';
 
@@ -76,7 +75,8 @@ export class EnginePool {
   /**
    * Computes the map of `setup` over the pool: one worker prepares the engine's model (`prepareMap`), then every
    * worker fills row bands from it (`evaluateRows`), each band classified for `motionSetup`'s ion motion by the
-   * engine's `phaseMap`. Results are joined in row order. Progress counts the preparation as 40 % of the cells.
+   * engine's `phaseMap`. Results are joined in row order, in a worker. Progress counts the preparation as 40 % of the
+   * cells. With a single band (`bands: 1`, the quick first pass) the whole map is one call on one worker.
    */
   async computeMap(setup: MapSetup, options: ComputeMapOptions): Promise<MapRowsResult> {
     const nField = setup.grid.nField;
@@ -89,6 +89,19 @@ export class EnginePool {
       options.onProgress?.({ done: Math.min(total, value), total });
     };
     const motionSetup = options.motionSetup ?? null;
+    if (bands.length === 1) {
+      // One band (the quick first pass): model, rows and classes in a single call on one worker.
+      return this.runJob(options, (submit) =>
+        submit<MapRowsResult>((api) =>
+          api.computeRows(
+            setup,
+            options.tolerance,
+            motionSetup,
+            proxy((cells: number) => options.onProgress?.({ done: Math.min(total, cells), total })),
+          ),
+        ),
+      );
+    }
     return this.runJob(options, async (submit) => {
       const model = await submit<BindingMapModel>((api) =>
         api.prepareMap(
@@ -122,12 +135,8 @@ export class EnginePool {
           }),
         ),
       );
-      const binding = mergeBands(parts.map((p) => p.binding));
-      const phases = parts.map((p) => p.phase);
-      const phase = phases.every((p): p is PhaseMapResult => p !== null)
-        ? mergePhases(phases, parts.map((p) => p.binding.cellCount), binding.mMax + 1, binding.levelsPerOrbital)
-        : null;
-      return { binding, phase };
+      // Joined in a worker (all are idle by now): the page only receives the joined map's buffers.
+      return submit<MapRowsResult>((api) => api.joinRows(transfer(parts, rowBuffers(parts))));
     });
   }
 

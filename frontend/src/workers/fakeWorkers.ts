@@ -2,6 +2,7 @@
 import { expose } from 'comlink';
 import { STATE_CLASS, type BindingMapModel, type BindingMapResult, type MapSetup, type PhaseMapResult } from '@fieldbound/shared';
 import type { EngineWorkerApi } from './engineContract';
+import { joinRowResults } from './mergePhases';
 
 /**
  * A Worker stand-in that serves `api` over a MessageChannel with comlink, as the real worker does.
@@ -14,7 +15,7 @@ export class FakeEngineWorker extends EventTarget {
     super();
     const channel = new MessageChannel();
     this.port = channel.port1;
-    expose(api, channel.port2);
+    expose({ ...composedCalls(api as Partial<EngineWorkerApi>), ...api }, channel.port2);
     this.port.addEventListener('message', (event) => this.dispatchEvent(new MessageEvent('message', { data: (event as MessageEvent).data })));
     this.port.start();
   }
@@ -25,6 +26,23 @@ export class FakeEngineWorker extends EventTarget {
     this.terminated = true;
     this.port.close();
   }
+}
+
+/**
+ * The engine worker's composite calls built from an engine double's own calls, as the real worker composes the
+ * engine's: `computeRows` = `prepareMap` + `evaluateRows` of every row; `joinRows` = the real join.
+ */
+function composedCalls(api: Partial<EngineWorkerApi>): Pick<EngineWorkerApi, 'computeRows' | 'joinRows'> {
+  return {
+    async computeRows(setup, tolerance, motionSetup, onProgress) {
+      if (!api.prepareMap || !api.evaluateRows) throw new Error('this engine double has no prepareMap / evaluateRows');
+      const model = await api.prepareMap(setup, tolerance, () => {});
+      return api.evaluateRows(model, 0, setup.grid.nField, motionSetup, onProgress);
+    },
+    async joinRows(parts) {
+      return joinRowResults(parts);
+    },
+  };
 }
 
 /** A Worker stand-in whose script throws: every message it receives raises an `error` event, as an uncaught exception would. */

@@ -1,4 +1,6 @@
 import type { BindingMapResult, PhaseMapResult } from '@fieldbound/shared';
+import type { MapRowsResult } from './engineContract';
+import { mergeBands } from './mergeBands';
 
 /**
  * Joins the moving-ion classes of contiguous row bands (lowest field first) into the layout of the joined map.
@@ -40,6 +42,19 @@ export function mergePhases(bands: readonly PhaseMapResult[], bandCells: readonl
     fractions,
     elapsedMs: Math.max(...bands.map((b) => b.elapsedMs)),
   };
+}
+
+/**
+ * Joins the results of contiguous row bands (lowest field first): binding energies by `mergeBands`, and the
+ * moving-ion classes by `mergePhases` when every band has them (otherwise none).
+ */
+export function joinRowResults(parts: readonly MapRowsResult[]): MapRowsResult {
+  const binding = mergeBands(parts.map((p) => p.binding));
+  const phases = parts.map((p) => p.phase);
+  const phase = phases.every((p): p is PhaseMapResult => p !== null)
+    ? mergePhases(phases, parts.map((p) => p.binding.cellCount), binding.mMax + 1, binding.levelsPerOrbital)
+    : null;
+  return { binding, phase };
 }
 
 /** Rows [start, end] (inclusive) of a binding map as a map of their own (copies; the source is left intact). */

@@ -1,4 +1,4 @@
-import { startTransition, useCallback, useEffect, useMemo, useRef, useState, type CSSProperties, type ReactNode } from 'react';
+import { memo, startTransition, useCallback, useEffect, useMemo, useRef, useState, type CSSProperties, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { Button, Drawer, Select, Space, Tooltip, Typography } from 'antd';
 import { CompressOutlined, MenuFoldOutlined, MenuUnfoldOutlined } from '@ant-design/icons';
@@ -18,7 +18,7 @@ import { SetupPanel } from './SetupPanel';
 import { createMapCaches, motionKey, useMapComputation } from './hooks/useMapComputation';
 import { useLayerGeometry, type LayerGeometry } from './hooks/useLayerGeometry';
 import { readoutAt } from './mapReadout';
-import { checkDraft, type SetupDraft } from './setupDraft';
+import { changesBinding, checkDraft, validateDraft, type SetupDraft } from './setupDraft';
 import { parseViewParams, roundProbe, sameWindow, setupWindow, windowSetup, writeViewParams, type ProbePoint, type ViewWindow } from './viewState';
 
 export interface ExplorerPageProps {
@@ -78,8 +78,9 @@ function withShown(setup: MapSetup, shown: ShownQuantity | null): MapSetup {
 /**
  * The map explorer: the setup on the left, the map filling the page, the probe in a drawer on the right.
  * All engine work runs in workers; the URL keeps the zoom window, the shown orbital and the probe point.
+ * Memoised: a host page's own renders (save state, dialogs, pins) pass it by while its props stay the same.
  */
-export function ExplorerPage({
+export const ExplorerPage = memo(function ExplorerPage({
   initialSetup,
   onSaveSetup,
   saveLabel,
@@ -124,7 +125,10 @@ export function ExplorerPage({
   const windowComp = useMapComputation(workers?.maps ?? null, zoomed, caches, { timeoutMs, label: 'window' });
 
   // Saved-maps seams: report the form's valid setup and each finished full-grid computation.
-  const validDraft = useMemo(() => checkDraft(draft, applied).valid, [draft, applied]);
+  // The form's validation depends on the draft alone: pressing Compute (a new applied setup) keeps the same valid
+  // setup and issues, so neither the host page nor the form fields re-render for it.
+  const validated = useMemo(() => validateDraft(draft), [draft]);
+  const validDraft = validated.valid;
   useEffect(() => onSetupChange?.(validDraft), [validDraft, onSetupChange]);
   const { status: baseStatus, result: baseResult, resultSetup: baseResultSetup, resultPass: basePass } = base.state;
   const baseFullMs = base.state.timings.fullMs;
@@ -137,8 +141,12 @@ export function ExplorerPage({
       startTransition(() => onComputed?.({ setup: baseResultSetup, result: baseResult, fullMs: baseFullMs, phase: basePhase, phaseMotionKey: basePhaseKey }));
   }, [baseStatus, basePass, baseResult, baseResultSetup, baseFullMs, basePhase, basePhaseKey, onComputed]);
 
-  const shown = applied.display.shown;
-  const levels = applied.contours.levelsKelvin;
+  // Kept by value: a newly applied setup with the same shown quantity, levels and species changes nothing drawn.
+  const shownKey = applied.display.shown.kind === 'survivors' ? 'survivors' : `m${applied.display.shown.m}`;
+  const shown = useMemo(() => applied.display.shown, [shownKey]);
+  const levelsKey = applied.contours.levelsKelvin.join(',');
+  const levels = useMemo(() => applied.contours.levelsKelvin, [levelsKey]);
+  const speciesKey = applied.species.join('\n');
   // Ion motion: classes from the engine's phaseMap on the binding energies computed (never recomputed for motion).
   const baseGeometry = useLayerGeometry(workers?.contours ?? null, base.state.result, base.state.resultSetup, base.motionWanted ? base.phase : null, shown, levels, base.motionWanted);
   const windowGeometry = useLayerGeometry(workers?.contours ?? null, zoomed ? windowComp.state.result : null, windowComp.state.resultSetup, windowComp.motionWanted ? windowComp.phase : null, shown, levels, windowComp.motionWanted);
@@ -179,16 +187,16 @@ export function ExplorerPage({
     if (next.toString() !== params.toString()) setParams(next, { replace: true });
   }, [view, shown, probe, applied, params, setParams]);
 
-  const check = useMemo(() => checkDraft(draft, applied), [draft, applied]);
-  const onDraftChange = useCallback(
-    (d: SetupDraft) => {
-      setDraft(d);
-      const c = checkDraft(d, applied);
-      // Display, contours, motion and observation time apply at once: they never recompute binding energies.
-      if (c.valid && !c.needsCompute) setApplied(c.valid);
-    },
-    [applied],
-  );
+  const check = useMemo(() => ({ ...validated, needsCompute: changesBinding(validated.valid, applied) }), [validated, applied]);
+  // Stable across applied setups (read through a ref), so the memoised form fields keep their props.
+  const appliedRef = useRef(applied);
+  appliedRef.current = applied;
+  const onDraftChange = useCallback((d: SetupDraft) => {
+    setDraft(d);
+    const c = checkDraft(d, appliedRef.current);
+    // Display, contours, motion and observation time apply at once: they never recompute binding energies.
+    if (c.valid && !c.needsCompute) setApplied(c.valid);
+  }, []);
   const onCompute = useCallback(() => {
     if (!check.valid) return;
     const axesChanged = check.valid.alphaAxis.min !== applied.alphaAxis.min || check.valid.alphaAxis.max !== applied.alphaAxis.max || check.valid.fieldAxis.min !== applied.fieldAxis.min || check.valid.fieldAxis.max !== applied.fieldAxis.max || check.valid.alphaAxis.scale !== applied.alphaAxis.scale || check.valid.fieldAxis.scale !== applied.fieldAxis.scale;
@@ -222,7 +230,7 @@ export function ExplorerPage({
   // Stable while the setup is unchanged, so progress renders of the page never re-render the setup form.
   const validSetup = check.valid;
   const onSaveValid = useMemo(() => (onSaveSetup && validSetup ? () => onSaveSetup(validSetup) : undefined), [onSaveSetup, validSetup]);
-  const species = useMemo(() => speciesCatalogue.filter((s) => applied.species.includes(s.name)), [speciesCatalogue, applied.species]);
+  const species = useMemo(() => speciesCatalogue.filter((s) => applied.species.includes(s.name)), [speciesCatalogue, speciesKey]);
   // One choice per atom (the catalogue lists an atom under its name and its symbol; the shorter one is stored).
   const speciesOptions = useMemo(() => {
     const byAtom = new Map<string, SpeciesMarker>();
@@ -297,6 +305,6 @@ export function ExplorerPage({
       </Drawer>
     </div>
   );
-}
+});
 
 export default ExplorerPage;

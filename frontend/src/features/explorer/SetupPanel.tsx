@@ -93,8 +93,37 @@ function Section({ title }: { title: string }) {
   );
 }
 
-/** The setup of a map: ranges and scales, grid, orbitals, cutoff, ion motion, contours and display units. */
+/**
+ * The setup of a map: ranges and scales, grid, orbitals, cutoff, ion motion, contours and display units; then Compute
+ * and Save. The fields (the antd form) are a memoised part of their own, outside which the buttons sit: pressing
+ * Compute re-renders only the buttons, never the form's items, which take longer than a frame.
+ */
 export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, onCompute, needsCompute, onSave, saveLabel, speciesOptions }: SetupPanelProps) {
+  return (
+    <>
+      <SetupFields draft={draft} issues={issues} onChange={onChange} speciesOptions={speciesOptions} />
+      <Space style={{ marginTop: 16, width: '100%' }} orientation="vertical">
+        <Button type="primary" block disabled={!needsCompute} onClick={onCompute}>
+          Compute
+        </Button>
+        {onSave && (
+          <Button block onClick={onSave} disabled={issues.length > 0}>
+            {saveLabel ?? 'Save setup'}
+          </Button>
+        )}
+        {issues.length > 0 && (
+          <Typography.Text type="danger" style={{ fontSize: 12 }}>
+            {issues.length === 1 ? 'One setting needs attention.' : `${issues.length} settings need attention.`}
+          </Typography.Text>
+        )}
+      </Space>
+    </>
+  );
+});
+
+type SetupFieldsProps = Pick<SetupPanelProps, 'draft' | 'issues' | 'onChange' | 'speciesOptions'>;
+
+const SetupFields = memo(function SetupFields({ draft, issues, onChange, speciesOptions }: SetupFieldsProps) {
   const set = (path: (string | number)[]) => (value: unknown) => onChange(setIn(draft, path, value));
   const { alphaUnit, fieldUnit, energyUnit } = draft.display;
   const aLabel = ALPHA_UNIT_LABEL[alphaUnit];
@@ -266,22 +295,6 @@ export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, on
           </Form.Item>
         </>
       )}
-
-      <Space style={{ marginTop: 16, width: '100%' }} orientation="vertical">
-        <Button type="primary" block disabled={!needsCompute} onClick={onCompute}>
-          Compute
-        </Button>
-        {onSave && (
-          <Button block onClick={onSave} disabled={issues.length > 0}>
-            {saveLabel ?? 'Save setup'}
-          </Button>
-        )}
-        {issues.length > 0 && (
-          <Typography.Text type="danger" style={{ fontSize: 12 }}>
-            {issues.length === 1 ? 'One setting needs attention.' : `${issues.length} settings need attention.`}
-          </Typography.Text>
-        )}
-      </Space>
     </Form>
   );
 });

@@ -28,8 +28,21 @@ export interface DraftCheck {
   needsCompute: boolean;
 }
 
-export function checkDraft(draft: SetupDraft, applied: MapSetup): DraftCheck {
+/** The one empty issue list: a valid draft always gives the same array, so memoised fields see no change. */
+const NO_ISSUES: SetupIssue[] = [];
+
+/** The setup rules on a draft alone (what the form shows): its issues and, when there are none, the valid setup. */
+export function validateDraft(draft: SetupDraft): Omit<DraftCheck, 'needsCompute'> {
   const result = validateSetup(draft);
-  if (!result.ok) return { issues: result.issues, valid: null, needsCompute: false };
-  return { issues: [], valid: result.setup, needsCompute: bindingInputsKey(result.setup) !== bindingInputsKey(applied) };
+  return result.ok ? { issues: NO_ISSUES, valid: result.setup } : { issues: result.issues, valid: null };
+}
+
+/** A valid setup changes what the engine computes, compared with the applied one. */
+export function changesBinding(valid: MapSetup | null, applied: MapSetup): boolean {
+  return valid !== null && bindingInputsKey(valid) !== bindingInputsKey(applied);
+}
+
+export function checkDraft(draft: SetupDraft, applied: MapSetup): DraftCheck {
+  const { issues, valid } = validateDraft(draft);
+  return { issues, valid, needsCompute: changesBinding(valid, applied) };
 }

@@ -10,6 +10,8 @@ export interface PinRegions {
 
 type Baselines = Record<string, Record<string, RegionName>>;
 const STORAGE_KEY = 'fieldbound.pinClasses';
+/** The one empty notice map: no notices keeps the same value, so the pins overlay (and the map) need not re-render. */
+const NO_NOTICES: ReadonlyMap<string, string> = new Map<string, string>();
 
 function load(): Baselines {
   try {
@@ -72,12 +74,12 @@ export function useClassNotices(regions: PinRegions | null): { notices: Readonly
 
   const notices = useMemo(() => {
     const out = new Map<string, string>();
-    if (!regions) return out;
+    if (!regions) return NO_NOTICES;
     for (const [pinId, region] of regions.byPin) {
       const before = baselines[pinId]?.[regions.shownKey];
       if (region && before && before !== region.dominant) out.set(pinId, classChangeNotice(before, region.dominant));
     }
-    return out;
+    return out.size > 0 ? out : NO_NOTICES;
   }, [regions, baselines]);
   return { notices, acknowledge };
 }

@@ -14,7 +14,8 @@ function PinsOverlay(props: Omit<Parameters<typeof PinsLayer>[0], 'regionsByPin'
   const { ctx, pins, onRegions } = props;
   const regions = ctx.regions;
   const computed = useMemo<PinRegions | null>(
-    () => (regions ? { byPin: new Map(pins.map((p) => [p.id, regionUnderPin(p.geometry, regions)])), shownKey: shownKeyOf(regions) } : null),
+    // Without pins there is nothing to report (the owner keeps null, so a new map result does not re-render it).
+    () => (regions && pins.length > 0 ? { byPin: new Map(pins.map((p) => [p.id, regionUnderPin(p.geometry, regions)])), shownKey: shownKeyOf(regions) } : null),
     [pins, regions],
   );
   useEffect(() => onRegions(computed), [computed, onRegions]);
