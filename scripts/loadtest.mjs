@@ -6,7 +6,9 @@
 // Prints a table per kind of request and writes the figures to docs/loadtest.md (--no-write to skip).
 //
 // Options: --connections N (200) --duration S (60) --max-requests N (600000) --warmup S (5) --no-build --no-write
-//          --keep-db (leave the database for inspection). The cluster stays up afterwards (`npm run db:down` stops it).
+//          --keep-db (leave the database for inspection).
+//          --profile: instead of the mix, each kind of request alone from 4 connections, with the CPU the server
+//          process and the PostgreSQL processes spend per request (from /proc), to see where the time goes. The cluster stays up afterwards (`npm run db:down` stops it).
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -35,7 +37,7 @@ const TARGET_P99 = { read: 100, write: 250 };
 const WRITE_KINDS = new Set(['add pin', 'reply', 'save setup']);
 
 function parseArgs(argv) {
-  const opts = { connections: 200, duration: 60, maxRequests: 600_000, warmup: 5, build: true, write: true, keepDb: false };
+  const opts = { connections: 200, duration: 60, maxRequests: 600_000, warmup: 5, build: true, write: true, keepDb: false, profile: false };
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i];
     const number = () => {
@@ -50,6 +52,7 @@ function parseArgs(argv) {
     else if (arg === '--no-build') opts.build = false;
     else if (arg === '--no-write') opts.write = false;
     else if (arg === '--keep-db') opts.keepDb = true;
+    else if (arg === '--profile') opts.profile = true;
     else throw new BootstrapError(`unknown option ${arg}; see the head of scripts/loadtest.mjs`);
   }
   if (opts.connections < 1 || opts.duration < 1) throw new BootstrapError('--connections and --duration must be at least 1');
@@ -291,6 +294,10 @@ async function main() {
   try {
     await waitForServer(server);
     const world = await prepare();
+    if (opts.profile) {
+      await profileKinds(world, autocannon, server.pid, cluster);
+      return;
+    }
     const samples = new Samples();
     const requests = requestCycle(world, samples);
 
@@ -345,6 +352,91 @@ async function main() {
     fs.closeSync(log);
     if (!opts.keepDb) cluster.sql(`DROP DATABASE IF EXISTS ${DATABASE} WITH (FORCE)`);
   }
+}
+
+/**
+ * Each kind of request alone: 4 connections, a fixed number of requests, and the CPU the server process and the
+ * cluster's PostgreSQL processes spent on them (user + system, from /proc), per request. Serial enough that
+ * queueing does not count; the figures are CPU, not latency.
+ */
+async function profileKinds({ sessions, teamId, saveMaps }, autocannon, serverPid, cluster) {
+  const editor = sessions[1];
+  const auth = { authorization: `Bearer ${editor.token}`, 'x-forwarded-for': '198.18.200.1' };
+  const pins = await api('GET', `/api/maps/${saveMaps[0]}/pins`, { token: editor.token });
+  const pinId = (Array.isArray(pins) ? pins : pins.items)[0].id;
+  const postJson = (path, body) => ({ method: 'POST', path, headers: { ...auth, 'content-type': 'application/json' }, body: JSON.stringify(body) });
+  // Each connection saves its own map with the version its last answer gave, so every save lands (no 409s).
+  const saveVersions = new Map();
+  for (const mapId of saveMaps.slice(10, 14)) saveVersions.set(mapId, (await api('GET', `/api/maps/${mapId}`, { token: editor.token })).version);
+  let saveSlots = 0;
+  const saveSetup = {
+    setupRequest: (req, context) => {
+      context.map ??= saveMaps[10 + (saveSlots++ % 4)];
+      context.version ??= saveVersions.get(context.map);
+      return {
+        ...req, method: 'PATCH', path: `/api/maps/${context.map}`, headers: { ...auth, 'content-type': 'application/json' },
+        body: JSON.stringify({ expectedVersion: context.version, description: `Profile save ${context.version}` }),
+      };
+    },
+    onResponse: (status, body, context) => {
+      if (status !== 200) return; // counted as not 2xx below
+      context.version = JSON.parse(body).version;
+      saveVersions.set(context.map, context.version);
+    },
+  };
+  const kinds = [
+    ['health (no sign-in)', [{ method: 'GET', path: '/api/health' }]],
+    ['list maps', [{ method: 'GET', path: `/api/teams/${teamId}/maps`, headers: auth }]],
+    ['open map', [{ method: 'GET', path: `/api/maps/${saveMaps[0]}`, headers: auth }]],
+    ['map pins', [{ method: 'GET', path: `/api/maps/${saveMaps[0]}/pins`, headers: auth }]],
+    ['open pin', [{ method: 'GET', path: `/api/pins/${pinId}`, headers: auth }]],
+    ['map versions', [{ method: 'GET', path: `/api/maps/${saveMaps[0]}/versions`, headers: auth }]],
+    ['viewing link', [{ method: 'GET', path: `/api/view/${LECTURE_TOKEN}`, headers: { 'x-forwarded-for': '198.18.200.2' } }]],
+    ['add pin', [postJson(`/api/maps/${saveMaps[1]}/pins`, { geometry: { kind: 'point', at: { alpha: 50, fieldTesla: 5 } }, title: 'Profile pin', body: 'Profile.' })]],
+    ['reply', [postJson(`/api/pins/${pinId}/replies`, { body: 'Profile reply.' })]],
+    ['save setup', [saveSetup]],
+  ];
+  const amount = 400;
+  const rows = [];
+  for (const [kind, requests] of kinds) {
+    // The viewing link allows 120 views a minute per address: stay inside it with one connection's worth.
+    const n = kind === 'viewing link' ? 100 : amount;
+    await autocannon({ url: BASE, connections: 4, amount: 40, requests, timeout: 10 }); // warm this path
+    const serverBefore = readProcCpu(serverPid);
+    const pgBefore = postgresCpu(cluster);
+    const started = performance.now();
+    const result = await autocannon({ url: BASE, connections: kind === 'viewing link' ? 1 : 4, amount: n, requests, timeout: 10 });
+    const seconds = (performance.now() - started) / 1000;
+    const serverMs = ((readProcCpu(serverPid) - serverBefore) * 1000) / n;
+    const pgMs = ((postgresCpu(cluster) - pgBefore) * 1000) / n;
+    const bad = result.non2xx + result.errors;
+    rows.push([kind, n, bad, serverMs.toFixed(2), pgMs.toFixed(2), (n / seconds).toFixed(0), result.latency.p50, result.latency.p99]);
+    step(`${kind}: server ${serverMs.toFixed(2)} ms CPU, PostgreSQL ${pgMs.toFixed(2)} ms CPU per request${bad ? ` (${bad} not 2xx!)` : ''}`);
+  }
+  const header = ['kind', 'requests', 'not 2xx', 'server CPU ms/request', 'PostgreSQL CPU ms/request', 'requests/s', 'p50 ms', 'p99 ms'];
+  console.log(`\n| ${header.join(' | ')} |\n|${header.map(() => '---').join('|')}|\n${rows.map((r) => `| ${r.join(' | ')} |`).join('\n')}`);
+  console.log(`\nload average ${loadAverage()} (other work on the machine inflates CPU per request)`);
+}
+
+/** CPU seconds of every process of the local cluster (postmaster and its children) so far. */
+function postgresCpu(cluster) {
+  let postmaster;
+  try {
+    postmaster = Number(fs.readFileSync(path.join(cluster.pgdata, 'postmaster.pid'), 'utf8').split('\n')[0]);
+  } catch {
+    return NaN;
+  }
+  let total = readProcCpu(postmaster);
+  for (const entry of fs.readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const fields = fs.readFileSync(`/proc/${entry}/stat`, 'utf8').split(') ')[1].split(' ');
+      if (Number(fields[1]) === postmaster) total += (Number(fields[11]) + Number(fields[12])) / 100;
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  return total;
 }
 
 /** User + system CPU seconds of a process so far (Linux /proc). */

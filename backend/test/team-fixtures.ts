@@ -97,3 +97,13 @@ export function api(t: TestApp) {
 export function callerOf(cast: RoleCast, caller: Caller): Person | null {
   return caller === 'anonymous' ? null : cast[caller];
 }
+
+/** A tiny valid PNG (1×1, grey). */
+export const PNG_1x1 = Buffer.from('89504e470d0a1a0a0000000d4948445200000001000000010800000000' + '3a7e9b550000000a49444154789c636000000002000154a24f5d0000000049454e44ae426082', 'hex');
+
+/** A multipart body carrying a thumbnail upload. */
+export function thumbnailForm(bytes: Buffer = PNG_1x1): FormData {
+  const form = new FormData();
+  form.append('file', new Blob([new Uint8Array(bytes)], { type: 'image/png' }), 'thumb.png');
+  return form;
+}

@@ -7,7 +7,9 @@ import { ExtractJwt, Strategy } from 'passport-jwt';
 import type { AppConfig } from '../config/configuration';
 import type { AuthUser } from '../common/current-user.decorator';
 import { ApiError } from '../common/api-error';
-import { User } from '../users/user.entity';
+import { selectRows } from '../common/sql-reads';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** Claims of a Fieldbound access token. */
 export interface AccessTokenClaims {
@@ -44,7 +46,11 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   }
 
   async validate(claims: AccessTokenClaims): Promise<AuthUser> {
-    const user = typeof claims.sub === 'string' ? await this.em.findOne(User, { id: claims.sub }, { fields: ['id', 'email', 'tokenVersion'] }) : null;
+    // On every signed-in request: one plain statement (common/sql-reads.ts), not an ORM lookup.
+    const rows = typeof claims.sub === 'string' && UUID.test(claims.sub)
+      ? await selectRows<{ id: string; email: string; token_version: number }>(this.em, 'select id, email, token_version from users where id = ?', [claims.sub])
+      : [];
+    const user = rows[0] ? { id: rows[0].id, email: rows[0].email, tokenVersion: rows[0].token_version } : null;
     if (!user) throw new ApiError(401, 'access_token_invalid', 'The account of this access token no longer exists; sign in again.');
     if (user.tokenVersion !== claims.ver) {
       throw new ApiError(401, 'access_token_revoked', 'This access token was revoked when the password changed; sign in again.');

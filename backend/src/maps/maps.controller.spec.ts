@@ -2,15 +2,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { EntityManager } from '@mikro-orm/postgresql';
 import { defaultSetup, setupFingerprint } from '@fieldbound/shared';
 import { startTestApp, type TestApp } from '../../test/test-app';
-import { addMember, api, type Caller, callerOf, createTeam, type Person, ROLES, roleCast, type RoleCast } from '../../test/team-fixtures';
+import { addMember, api, type Caller, callerOf, createTeam, type Person, PNG_1x1, ROLES, roleCast, type RoleCast, thumbnailForm } from '../../test/team-fixtures';
 import { MapsPurgeService } from './maps-purge.service';
 
 let t: TestApp;
 let cast: RoleCast;
 let call: ReturnType<typeof api>;
-
-/** A tiny valid PNG (1×1, grey). */
-export const PNG_1x1 = Buffer.from('89504e470d0a1a0a0000000d4948445200000001000000010800000000' + '3a7e9b550000000a49444154789c636000000002000154a24f5d0000000049454e44ae426082', 'hex');
 
 beforeAll(async () => {
   t = await startTestApp();
@@ -25,12 +22,6 @@ async function newMap(by: Person = cast.owner, overrides: Record<string, unknown
   const res = await call('POST', `/teams/${cast.teamId}/maps`, { as: by, json: { title: 'Caesium, weak fields', tags: ['cs', 'lecture'], setup: defaultSetup(), ...overrides } });
   expect(res.status).toBe(201);
   return res.body as { id: string; version: number; title: string; setup: ReturnType<typeof defaultSetup> };
-}
-
-function thumbnailForm(bytes: Buffer = PNG_1x1): FormData {
-  const form = new FormData();
-  form.append('file', new Blob([new Uint8Array(bytes)], { type: 'image/png' }), 'thumb.png');
-  return form;
 }
 
 const summaryBody = () => ({ engineVersion: '0.1.0', setupFingerprint: setupFingerprint(defaultSetup()), counts: { bound: 120, resonance: 30, unbound: 4000 }, computationMs: 812.5 });

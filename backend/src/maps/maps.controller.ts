@@ -21,7 +21,7 @@ export class MapsController {
   constructor(private readonly maps: MapsService) {}
 
   @Get('teams/:teamId/maps')
-  @TeamRole('viewer')
+  @TeamRole('viewer', { roleOnly: true })
   @ApiOperation({ summary: "List the team's maps (search in titles and tags, sort, page)" })
   list(@Param('teamId') teamId: string, @Query() query: ListMapsQueryDto): Promise<MapListResponse> {
     return this.maps.list(teamId, query);

@@ -3,6 +3,7 @@ import { MikroOrmModule } from '@mikro-orm/nestjs';
 import { MapEventsModule } from '../live/map-events.module';
 import { TeamsModule } from '../teams/teams.module';
 import { MapAccessService } from './map-access.service';
+import { MapReads } from './map.reads';
 import { SavedMap } from './map.entity';
 import { MapResultSummary } from './map-result-summary.entity';
 import { MapThumbnail } from './map-thumbnail.entity';
@@ -15,7 +16,7 @@ import { MapsService } from './maps.service';
 @Module({
   imports: [TeamsModule, MapEventsModule, MikroOrmModule.forFeature([SavedMap, MapVersion, MapResultSummary, MapThumbnail])],
   controllers: [MapsController],
-  providers: [MapsService, MapAccessService, MapsPurgeService],
-  exports: [MapAccessService, MapsPurgeService, MikroOrmModule],
+  providers: [MapsService, MapAccessService, MapReads, MapsPurgeService],
+  exports: [MapAccessService, MapReads, MapsPurgeService, MikroOrmModule],
 })
 export class MapsModule {}

@@ -19,12 +19,14 @@ import { diffMapContent } from './map-diff';
 import { isPng, restoreWindowPassed, validSetupOrThrow, versionConflict } from './map-errors';
 import { SavedMap } from './map.entity';
 import { MapRepository } from './map.repository';
+import { MapReads } from './map.reads';
 import { MapResultSummary } from './map-result-summary.entity';
 import { MapThumbnail } from './map-thumbnail.entity';
 import { MapVersion } from './map-version.entity';
-import { toDeletedMapItem, toMapDetail, toMapListItem, toVersionDetail, toVersionSummary } from './map.views';
+import { toDeletedMapItem, toMapDetail, toMapListItem, toVersionDetail } from './map.views';
 
 const DAY_MS = 86_400_000;
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** Saved maps: content with numbered versions, optimistic locking, soft delete, summaries and thumbnails. */
 @Injectable()
@@ -36,11 +38,12 @@ export class MapsService {
     private readonly teamAccess: TeamAccessService,
     private readonly clock: Clock,
     private readonly events: MapEventsService,
+    private readonly reads: MapReads,
   ) {}
 
   async list(teamId: string, query: ListMapsQueryDto): Promise<MapListResponse> {
     const sort = query.sort ?? 'updatedAt';
-    const [maps, total] = await this.maps.listForTeam(teamId, {
+    return this.reads.listForTeam(teamId.toLowerCase(), {
       search: query.search || undefined,
       tag: query.tag,
       sort,
@@ -48,7 +51,6 @@ export class MapsService {
       limit: query.limit ?? 50,
       offset: query.offset ?? 0,
     });
-    return { items: maps.map(toMapListItem), total };
   }
 
   async create(team: Team, caller: AuthUser, dto: CreateMapDto): Promise<MapDetail> {
@@ -64,8 +66,10 @@ export class MapsService {
   }
 
   async get(mapId: string, caller: AuthUser): Promise<MapDetail> {
-    const { map } = await this.mapAccess.load(mapId, caller.id, 'viewer');
-    return toMapDetail(map);
+    // Viewer is the lowest role, so any member may read: the map and the caller's membership in one statement.
+    const found = UUID.test(mapId) ? await this.reads.detailWithRole(mapId.toLowerCase(), caller.id) : null;
+    if (!found?.role) throw mapNotFound();
+    return found.detail;
   }
 
   /** Applies an edit based on `expectedVersion`; a stale one gets 409 with the current map. */
@@ -130,9 +134,8 @@ export class MapsService {
   }
 
   async versions(mapId: string, caller: AuthUser): Promise<MapVersionSummary[]> {
-    const { map } = await this.mapAccess.load(mapId, caller.id, 'viewer');
-    const versions = await this.em.find(MapVersion, { map }, { orderBy: { number: 'desc' }, populate: ['createdBy'], exclude: ['setup', 'description'] });
-    return versions.map((v) => toVersionSummary(v as MapVersion));
+    await this.mapAccess.requireRoleForMap(mapId, caller.id, 'viewer');
+    return this.reads.versionSummaries(mapId.toLowerCase());
   }
 
   async version(mapId: string, caller: AuthUser, number: number): Promise<MapVersionDetail> {

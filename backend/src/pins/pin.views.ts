@@ -1,4 +1,4 @@
-import type { PinDetail, PinReplyView, PinView, SharedPin } from '@fieldbound/shared';
+import type { PinReplyView, PinView } from '@fieldbound/shared';
 import { personRef } from '../maps/map.views';
 import type { PinReply } from './pin-reply.entity';
 import type { Pin } from './pin.entity';
@@ -24,13 +24,4 @@ export function toPinView(pin: Pin): PinView {
 
 export function toReplyView(reply: PinReply): PinReplyView {
   return { id: reply.id, author: personRef(reply.author), body: reply.body, createdAt: reply.createdAt.toISOString() };
-}
-
-export function toPinDetail(pin: Pin, replies: PinReply[]): PinDetail {
-  return { ...toPinView(pin), replyCount: replies.length, replies: replies.map(toReplyView) };
-}
-
-/** What a viewing-link holder sees of a pin: no people, no thread. */
-export function toSharedPin(pin: Pin): SharedPin {
-  return { id: pin.id, geometry: pin.geometry, title: pin.title, body: pin.body, status: pin.status, category: pin.category };
 }

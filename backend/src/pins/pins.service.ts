@@ -19,7 +19,8 @@ import { mentionedEmails } from './mentions';
 import { checkPinGeometry } from './pin-geometry';
 import { PinReply } from './pin-reply.entity';
 import { Pin } from './pin.entity';
-import { toPinDetail, toPinView, toReplyView } from './pin.views';
+import { PinReads } from './pin.reads';
+import { toPinView, toReplyView } from './pin.views';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -58,12 +59,12 @@ export class PinsService {
     private readonly config: ConfigService<AppConfig, true>,
     private readonly clock: Clock,
     private readonly events: MapEventsService,
+    private readonly reads: PinReads,
   ) {}
 
   async list(mapId: string, caller: AuthUser, status?: 'open' | 'resolved'): Promise<PinView[]> {
-    const { map } = await this.mapAccess.load(mapId, caller.id, 'viewer');
-    const pins = await this.em.find(Pin, { map, ...(status ? { status } : {}) }, { populate: ['author', 'resolvedBy'], orderBy: { createdAt: 'asc', id: 'asc' } });
-    return pins.map(toPinView);
+    await this.mapAccess.requireRoleForMap(mapId, caller.id, 'viewer');
+    return this.reads.listForMap(mapId.toLowerCase(), status);
   }
 
   async create(mapId: string, caller: AuthUser, dto: CreatePinDto): Promise<PinView> {
@@ -80,9 +81,15 @@ export class PinsService {
   }
 
   async get(pinId: string, caller: AuthUser): Promise<PinDetail> {
-    const { pin } = await this.load(pinId, caller, 'viewer');
-    const replies = await this.em.find(PinReply, { pin }, { populate: ['author'], orderBy: { createdAt: 'asc', id: 'asc' } });
-    return toPinDetail(pin, replies);
+    const pin = UUID.test(pinId) ? await this.reads.pin(pinId.toLowerCase()) : null;
+    if (!pin) throw pinNotFound();
+    try {
+      await this.mapAccess.requireRoleForMap(pin.mapId, caller.id, 'viewer');
+    } catch (error) {
+      if (error instanceof NotFoundException) throw pinNotFound();
+      throw error;
+    }
+    return this.reads.detail(pin);
   }
 
   /** Edits, moves, resolves or reopens a pin based on `expectedVersion`; a stale one gets 409 with the current pin. */

@@ -1,5 +1,6 @@
 import { ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { EntityManager } from '@mikro-orm/postgresql';
+import { selectRows } from '../common/sql-reads';
 import { Membership } from './membership.entity';
 import { roleAtLeast, type TeamRole } from './team-role';
 
@@ -40,6 +41,17 @@ export class TeamAccessService {
       });
     }
     return membership;
+  }
+
+  /** The same answers as `requireRole`, from one plain statement (common/sql-reads.ts); loads no entities. */
+  async requireRoleOnly(teamId: string, userId: string, minimumRole: TeamRole): Promise<TeamRole> {
+    const rows = UUID.test(teamId) && UUID.test(userId)
+      ? await selectRows<{ role: TeamRole }>(this.em, 'select role from memberships where team_id = ? and user_id = ?', [teamId.toLowerCase(), userId])
+      : [];
+    if (!rows[0]) throw teamNotFound();
+    // A role too low is rare: let the entity path build its 403 with the team's name.
+    if (!roleAtLeast(rows[0].role, minimumRole)) await this.requireRole(teamId, userId, minimumRole);
+    return rows[0].role;
   }
 
   /** The membership, or null for non-members and malformed ids. Never throws for access reasons. */

@@ -7,6 +7,7 @@ import { TeamAccessService } from './team-access.service';
 import type { TeamRole as Role } from './team-role';
 
 const TEAM_ROLE_KEY = 'fieldbound:teamRole';
+const ROLE_ONLY_KEY = 'fieldbound:teamRoleOnly';
 
 type TeamRequest = AuthenticatedRequest & { membership?: Membership };
 
@@ -25,7 +26,9 @@ export class TeamRoleGuard implements CanActivate {
     if (!request.user) throw new ApiError(401, 'not_signed_in', 'Sign in to continue.');
     const teamId = request.params.teamId;
     if (typeof teamId !== 'string') throw new Error('@TeamRole() is only for routes with a :teamId parameter');
-    request.membership = await this.access.requireRole(teamId, request.user.id, minimum);
+    const roleOnly = this.reflector.getAllAndOverride<boolean | undefined>(ROLE_ONLY_KEY, [context.getHandler(), context.getClass()]);
+    if (roleOnly) await this.access.requireRoleOnly(teamId, request.user.id, minimum);
+    else request.membership = await this.access.requireRole(teamId, request.user.id, minimum);
     return true;
   }
 }
@@ -33,9 +36,11 @@ export class TeamRoleGuard implements CanActivate {
 /**
  * Requires the signed-in caller to hold at least `minimumRole` in the team named by the route's
  * `:teamId` parameter: 404 for non-members, 403 for a lower role. Put it on a handler or a
- * controller (the handler's wins).
+ * controller (the handler's wins). `roleOnly: true` checks with one plain statement and loads no
+ * membership entity (busy read routes that do not use `@CurrentMembership()`).
  */
-export const TeamRole = (minimumRole: Role) => applyDecorators(SetMetadata(TEAM_ROLE_KEY, minimumRole), UseGuards(TeamRoleGuard));
+export const TeamRole = (minimumRole: Role, options: { roleOnly?: boolean } = {}) =>
+  applyDecorators(SetMetadata(TEAM_ROLE_KEY, minimumRole), SetMetadata(ROLE_ONLY_KEY, options.roleOnly ?? false), UseGuards(TeamRoleGuard));
 
 /** The caller's membership in the `:teamId` team, as checked by `@TeamRole()`; its team is loaded. */
 export const CurrentMembership = createParamDecorator((_data: unknown, context: ExecutionContext): Membership => {

@@ -1,13 +1,13 @@
 import { GoneException, Injectable, NotFoundException } from '@nestjs/common';
-import { EntityManager, raw } from '@mikro-orm/postgresql';
-import type { CreatedViewingLink, SharedMapView, ViewingLinkView } from '@fieldbound/shared';
+import { EntityManager } from '@mikro-orm/postgresql';
+import type { CreatedViewingLink, MapSetup, SharedMapView, ViewingLinkView } from '@fieldbound/shared';
 import { Clock } from '../common/clock';
 import type { AuthUser } from '../common/current-user.decorator';
 import { fieldError } from '../common/validation';
 import { MapAccessService } from '../maps/map-access.service';
 import { personRef } from '../maps/map.views';
-import { Pin } from '../pins/pin.entity';
-import { toSharedPin } from '../pins/pin.views';
+import { PinReads } from '../pins/pin.reads';
+import { selectRows } from '../common/sql-reads';
 import { User } from '../users/user.entity';
 import type { CreateViewingLinkDto } from './dto/viewing-link.dto';
 import { ViewingLink } from './viewing-link.entity';
@@ -34,6 +34,10 @@ function linkNotFound(): NotFoundException {
   return new NotFoundException({ statusCode: 404, code: 'viewing_link_not_found', message: 'This viewing link does not exist or was revoked.' });
 }
 
+function linkExpired(): GoneException {
+  return new GoneException({ statusCode: 410, code: 'viewing_link_expired', message: 'This viewing link has expired. Ask the person who shared it for a new one.' });
+}
+
 /** Read-only links to one map for people without an account. */
 @Injectable()
 export class ViewingLinksService {
@@ -41,6 +45,7 @@ export class ViewingLinksService {
     private readonly em: EntityManager,
     private readonly mapAccess: MapAccessService,
     private readonly clock: Clock,
+    private readonly pins: PinReads,
   ) {}
 
   async list(mapId: string, caller: AuthUser): Promise<ViewingLinkView[]> {
@@ -82,12 +87,29 @@ export class ViewingLinksService {
    * Unknown or revoked → 404; expired → 410.
    */
   async view(token: string): Promise<SharedMapView> {
-    const link = await this.findUsable(token);
+    if (!looksLikeViewingToken(token)) throw linkNotFound();
     const now = this.clock.now();
-    // Counted in the database so simultaneous views are all counted.
-    await this.em.nativeUpdate(ViewingLink, { id: link.id }, { viewCount: raw('view_count + 1'), lastViewedAt: now } as never);
-    const pins = link.includePins ? await this.em.find(Pin, { map: link.map }, { orderBy: { createdAt: 'asc', id: 'asc' } }) : null;
-    return { title: link.map.title, description: link.map.description, setup: link.map.setup, pins: pins ? pins.map(toSharedPin) : null };
+    // The busiest public read, in plain SQL (common/sql-reads.ts): find the link with its live map and count the
+    // view in one statement — counted in the database, so simultaneous views are all counted; an expired link is
+    // found but not counted.
+    const rows = await selectRows<{ map_id: string; include_pins: boolean; expired: boolean; title: string; description: string; setup: MapSetup }>(
+      this.em,
+      `with link as (
+         select l.id, l.map_id, l.include_pins, (l.expires_at is not null and l.expires_at <= ?) as expired
+         from viewing_links l join maps m on m.id = l.map_id
+         where l.token_hash = ? and l.revoked_at is null and m.deleted_at is null),
+       counted as (
+         update viewing_links v set view_count = v.view_count + 1, last_viewed_at = ?
+         from link where v.id = link.id and not link.expired returning v.id)
+       select link.map_id, link.include_pins, link.expired, m.title, m.description, m.setup
+       from link join maps m on m.id = link.map_id left join counted on counted.id = link.id`,
+      [now, hashViewingToken(token), now],
+    );
+    const link = rows[0];
+    if (!link) throw linkNotFound();
+    if (link.expired) throw linkExpired();
+    const pins = link.include_pins ? await this.pins.sharedForMap(link.map_id) : null;
+    return { title: link.title, description: link.description, setup: link.setup, pins };
   }
 
   /** The link behind a token, with its map, if it may be used now. Unknown or revoked → 404; expired → 410. Counts nothing. */
@@ -95,9 +117,7 @@ export class ViewingLinksService {
     if (!looksLikeViewingToken(token)) throw linkNotFound();
     const link = await this.em.findOne(ViewingLink, { tokenHash: hashViewingToken(token) }, { populate: ['map'] });
     if (!link || link.revokedAt || link.map.deletedAt) throw linkNotFound();
-    if (link.expiresAt && link.expiresAt.getTime() <= this.clock.now().getTime()) {
-      throw new GoneException({ statusCode: 410, code: 'viewing_link_expired', message: 'This viewing link has expired. Ask the person who shared it for a new one.' });
-    }
+    if (link.expiresAt && link.expiresAt.getTime() <= this.clock.now().getTime()) throw linkExpired();
     return link;
   }
 }
