@@ -140,6 +140,26 @@ describe('EnginePool: the quick pass and the join', () => {
     expect(progress.at(-1)).toEqual({ done: 40, total: 40 });
   });
 
+  it('splits the quick pass over the workers: each computes a band of rows whole from its own setup, joined in row order', async () => {
+    const seen: MapSetup[] = [];
+    const api = fakeEngineApi();
+    const quickOnly = {
+      computeRows: async (s: MapSetup, tolerance: number | undefined, motionSetup: MapSetup | null, onProgress: (cells: number) => void) => {
+        seen.push(s);
+        const model = await api.prepareMap(s, tolerance, () => {});
+        return api.evaluateRows(model, 0, s.grid.nField, motionSetup, onProgress);
+      },
+    };
+    pool = new EnginePool({ createWorker: () => new FakeEngineWorker(quickOnly) as unknown as Worker, size: 2 });
+    const wide: MapSetup = { ...setup, fieldAxis: { ...setup.fieldAxis, scale: 'linear', min: 1, max: 10 } };
+    const { binding } = await pool.computeMap(wide, { timeoutMs: 5000, quick: true, tolerance: 1e-3 });
+    // Rows 0…4 (1…5 T) and 5…9 (6…10 T): the same rows as the whole map's.
+    expect(seen.map((s) => [s.fieldAxis.min, s.fieldAxis.max, s.grid.nField])).toEqual([[1, 5, 5], [6, 10, 5]]);
+    expect(binding.nField).toBe(10);
+    // The fake engine numbers each band's rows from 0: the join keeps the lower band first.
+    expect(Array.from(binding.fieldsAu)).toEqual([0, 1, 2, 3, 4, 0, 1, 2, 3, 4]);
+  });
+
   it('joins the row bands in a worker (one joinRows call) into the same map as joined in row order', async () => {
     const calls: Record<string, number> = {};
     const counted = countingApi(calls);

@@ -1,8 +1,8 @@
 import { wrap, proxy, transfer, type Remote } from 'comlink';
 import type { BindingMapModel, BindingMapResult, MapProgress, MapSetup, PhaseMapResult } from '@fieldbound/shared';
 import { MapComputeError, rowBuffers, toComputeError, type EngineWorkerApi, type MapRowsResult } from './engineContract';
-import { mergePhases, sliceRows } from './mergePhases';
-import { splitRows } from './rowBands';
+import { joinRowResults, mergePhases, sliceRows } from './mergePhases';
+import { bandSetup, splitRows } from './rowBands';
 
 /** Share of a map's progress count given to preparing the engine's model. */
 const PREPARE_SHARE = 0.4;
@@ -28,8 +28,13 @@ export interface ComputeMapOptions extends RunOptions {
   onProgress?: (progress: MapProgress) => void;
   /** Bands per worker: more bands balance uneven rows better. Default 2. */
   bandsPerWorker?: number;
-  /** Exact number of row bands (overrides bandsPerWorker; the quick first pass uses 1). */
+  /** Exact number of row bands (overrides bandsPerWorker). */
   bands?: number;
+  /**
+   * The quick first pass of a small (coarse) grid: one band per worker, each computed whole by its worker from a
+   * model of its own field range (`computeRows`), joined on the page.
+   */
+  quick?: boolean;
   /** Accuracy of the engine's model (default: the engine's 1e-6); the quick first pass asks for less. */
   tolerance?: number;
   /** The setup whose ion motion classifies the rows (null or motion "none": binding energies only). */
@@ -76,7 +81,7 @@ export class EnginePool {
    * Computes the map of `setup` over the pool: one worker prepares the engine's model (`prepareMap`), then every
    * worker fills row bands from it (`evaluateRows`), each band classified for `motionSetup`'s ion motion by the
    * engine's `phaseMap`. Results are joined in row order, in a worker. Progress counts the preparation as 40 % of the
-   * cells. With a single band (`bands: 1`, the quick first pass) the whole map is one call on one worker.
+   * cells. A single band, or the quick pass (`quick`), is computed whole by each worker (`computeRows`).
    */
   async computeMap(setup: MapSetup, options: ComputeMapOptions): Promise<MapRowsResult> {
     const nField = setup.grid.nField;
@@ -89,18 +94,30 @@ export class EnginePool {
       options.onProgress?.({ done: Math.min(total, value), total });
     };
     const motionSetup = options.motionSetup ?? null;
-    if (bands.length === 1) {
-      // One band (the quick first pass): model, rows and classes in a single call on one worker.
-      return this.runJob(options, (submit) =>
-        submit<MapRowsResult>((api) =>
-          api.computeRows(
-            setup,
-            options.tolerance,
-            motionSetup,
-            proxy((cells: number) => options.onProgress?.({ done: Math.min(total, cells), total })),
+    if (options.quick || bands.length === 1) {
+      // The quick pass: every worker computes a band of its own whole (model of the band's field range, rows,
+      // classes) in one call — no model shared through the page, so nothing waits for a round trip. The bands are
+      // small (a coarse grid) and joined here.
+      const own = options.quick ? splitRows(nField, this.size) : bands;
+      const doneOf = new Array<number>(own.length).fill(0);
+      return this.runJob(options, async (submit) => {
+        const parts = await Promise.all(
+          own.map((band, k) =>
+            submit<MapRowsResult>((api) =>
+              api.computeRows(
+                own.length === 1 ? setup : bandSetup(setup, band),
+                options.tolerance,
+                motionSetup,
+                proxy((cells: number) => {
+                  doneOf[k] = cells;
+                  options.onProgress?.({ done: Math.min(total, doneOf.reduce((x, y) => x + y, 0)), total });
+                }),
+              ),
+            ),
           ),
-        ),
-      );
+        );
+        return joinRowResults(parts);
+      });
     }
     return this.runJob(options, async (submit) => {
       const model = await submit<BindingMapModel>((api) =>

@@ -1,4 +1,4 @@
-import { startTransition, useEffect, useState } from 'react';
+import { useLayoutEffect, useState } from 'react';
 import type { BindingMapResult, MapSetup, PhaseMapResult } from '@fieldbound/shared';
 import type { ContourClient } from '../../../workers/contourClient';
 import type { MapComputeError } from '../../../workers/engineContract';
@@ -36,7 +36,8 @@ export function useLayerGeometry(
   const [state, setState] = useState<LayerGeometry>(NONE);
   const shownKey = shown.kind === 'survivors' ? 's' : `m${shown.m}`;
   const levelsKey = levelsKelvin.join(',');
-  useEffect(() => {
+  // A layout effect: the request leaves in the commit that brings the result, not after the next paint.
+  useLayoutEffect(() => {
     if (!client || !result || !resultSetup) {
       setState(NONE);
       return;
@@ -45,7 +46,7 @@ export function useLayerGeometry(
     let live = true;
     const fields = mapFields(result, phase, shownKey === 's' ? { kind: 'survivors' } : { kind: 'orbital', m: Number(shownKey.slice(1)) }, levelsKey ? levelsKey.split(',').map(Number) : [], kelvinToHartree);
     client.geometry(fields).then(
-      (geometry) => live && startTransition(() => setState({ geometry, forResult: result, forSetup: resultSetup, forPhase: phase, error: null })),
+      (geometry) => live && setState({ geometry, forResult: result, forSetup: resultSetup, forPhase: phase, error: null }),
       (error: MapComputeError) => live && setState((s) => ({ ...s, error })),
     );
     return () => {

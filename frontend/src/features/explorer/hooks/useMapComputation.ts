@@ -126,9 +126,10 @@ function mark(label: string | undefined, what: string) {
 }
 
 /**
- * Computes the map of `setup` in the pool. The quick first pass (64 × 64, model to 10⁻³) and the full grid start
- * together — on two cores one worker draws the first picture while the other prepares the full model — and the
- * full result replaces the first one in place. Ion motion is applied to each row band by the engine's phaseMap as
+ * Computes the map of `setup` in the pool. The quick first pass (64 × 64, model to 10⁻³; each worker computes a band
+ * of it whole, see `EnginePool.computeMap`'s `quick`) runs first and alone — on a busy 2-core machine the first
+ * picture is there sooner than if the full pass shared the cores with it — then the full grid, whose result
+ * replaces the first one in place. Ion motion is applied to each row band by the engine's phaseMap as
  * it is computed. Binding maps are cached by `bindingInputsKey` and classes by motion settings too, so changing
  * display, contour levels, the shown orbital, motion or observation time never recomputes binding energies:
  * changing motion or τ only reruns the classification (`computePhase`). A new setup cancels the work in flight.
@@ -179,33 +180,18 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
       setState((s) => ({ ...s, status: 'error', progress: null, error }));
     };
 
-    if (coarse) {
-      pool.computeMap(coarse, { timeoutMs, signal: abort.signal, tolerance: COARSE_TOLERANCE, bands: 1, motionSetup }).then((r) => {
-        if (abort.signal.aborted || fullDone) return;
-        firstPictureMs = performance.now() - started;
-        mark(label, 'coarse-result');
-        // Results render as transitions: React renders them in slices, so a new picture never blocks the page.
-        startTransition(() => setState((s) => ({ ...s, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null } })));
-      }, fail);
-    }
-    pool
-      .computeMap(current, {
-        timeoutMs,
-        signal: abort.signal,
-        motionSetup,
-        onProgress: (p) => {
-          if (abort.signal.aborted) return;
-          // At most a few renders a second: progress must never cost the page its smoothness.
-          const now = performance.now();
-          if (now - lastProgress < PROGRESS_RENDER_MS && p.done < p.total) return;
-          lastProgress = now;
-          const elapsedMs = now - started;
-          const remainingMs = p.done >= Math.max(1, p.total * 0.05) ? (elapsedMs / p.done) * (p.total - p.done) : null;
-          const pass = coarse && firstPictureMs === null ? 'coarse' : 'full';
-          progress.set({ pass, done: p.done, total: p.total, elapsedMs, remainingMs });
-        },
-      })
-      .then((r) => {
+    const onProgress = (pass: ComputeProgress['pass']) => (p: { done: number; total: number }) => {
+      if (abort.signal.aborted) return;
+      // At most a few renders a second: progress must never cost the page its smoothness.
+      const now = performance.now();
+      if (now - lastProgress < PROGRESS_RENDER_MS && p.done < p.total) return;
+      lastProgress = now;
+      const elapsedMs = now - started;
+      const remainingMs = p.done >= Math.max(1, p.total * 0.05) ? (elapsedMs / p.done) * (p.total - p.done) : null;
+      progress.set({ pass, done: p.done, total: p.total, elapsedMs, remainingMs });
+    };
+    const fullPass = () =>
+      pool.computeMap(current, { timeoutMs, signal: abort.signal, motionSetup, onProgress: onProgress('full') }).then((r) => {
         if (abort.signal.aborted) return;
         fullDone = true;
         progress.set(null);
@@ -213,13 +199,30 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
         if (r.phase && startMotion) caches.phase.set(`${key}|${startMotion}`, r.phase);
         const fullMs = performance.now() - started;
         mark(label, 'full-result');
-        startTransition(() =>
-          setState({
-            status: 'done', result: r.binding, resultSetup: current, resultPass: 'full', phase: r.phase, phaseKey: r.phase ? startMotion : null,
-            progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs },
-          }),
-        );
+        setState({
+          status: 'done', result: r.binding, resultSetup: current, resultPass: 'full', phase: r.phase, phaseKey: r.phase ? startMotion : null,
+          progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs },
+        });
       }, fail);
+
+    if (coarse) {
+      // The quick pass runs alone, so it has the machine's cores to itself; the full pass starts once it is in.
+      pool
+        .computeMap(coarse, { timeoutMs, signal: abort.signal, tolerance: COARSE_TOLERANCE, quick: true, motionSetup, onProgress: onProgress('coarse') })
+        .then((r) => {
+          if (abort.signal.aborted || fullDone) return;
+          firstPictureMs = performance.now() - started;
+          mark(label, 'coarse-result');
+          // A plain update, not a transition: a transition waits behind (and restarts after) each progress update,
+          // and rendering a result is cheap (the host page and the form are memoised; contours are the worker's).
+          setState((s) => ({ ...s, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null } }));
+        }, fail)
+        .then(() => {
+          if (!abort.signal.aborted) void fullPass();
+        });
+    } else {
+      void fullPass();
+    }
     return () => abort.abort();
     // `attempt` re-runs after Retry; the setup itself is read through the ref and keyed by `key`.
   }, [pool, key, caches, attempt, timeoutMs, label, progress]);
