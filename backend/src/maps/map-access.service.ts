@@ -5,7 +5,7 @@ import { roleAtLeast, type TeamRole } from '../teams/team-role';
 import type { Membership } from '../teams/membership.entity';
 import { SavedMap } from './map.entity';
 import { MapRepository } from './map.repository';
-import { MapReads } from './map.reads';
+import { type MapAccessContext, MapReads } from './map.reads';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -30,12 +30,12 @@ export class MapAccessService {
    * The same check as `load` for routes that only read (one plain statement, no entities): the map's team id,
    * or the same 404 / 403 answers.
    */
-  async requireRoleForMap(mapId: string, userId: string, minimumRole: TeamRole): Promise<{ teamId: string; role: TeamRole }> {
+  async requireRoleForMap(mapId: string, userId: string, minimumRole: TeamRole): Promise<MapAccessContext & { role: TeamRole }> {
     if (!UUID.test(mapId) || !UUID.test(userId)) throw mapNotFound();
-    const found = await this.reads.roleForMap(mapId.toLowerCase(), userId);
-    if (!found || !found.role) throw mapNotFound();
+    const found = await this.reads.accessContext(mapId.toLowerCase(), userId);
+    if (!found?.role) throw mapNotFound();
     if (!roleAtLeast(found.role, minimumRole)) await this.access.requireRole(found.teamId, userId, minimumRole);
-    return { teamId: found.teamId, role: found.role };
+    return { ...found, role: found.role };
   }
 
   async load(mapId: string, userId: string, minimumRole: TeamRole, options: { includeDeleted?: boolean } = {}): Promise<{ map: SavedMap; membership: Membership }> {

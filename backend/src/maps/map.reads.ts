@@ -83,6 +83,14 @@ function listItemFromRow(row: MapRow): MapListItem {
   };
 }
 
+export interface MapAccessContext {
+  mapId: string;
+  teamId: string;
+  mapTitle: string;
+  role: TeamRole | null;
+  caller: { id: string; email: string; displayName: string };
+}
+
 const SORT_COLUMNS: Record<MapListQuery['sort'], string> = { updatedAt: 'm.updated_at', createdAt: 'm.created_at', title: 'm.title' };
 
 /** Read-only queries of maps for the busiest routes (see common/sql-reads.ts for why plain SQL). */
@@ -107,16 +115,22 @@ export class MapReads {
     return row ? { detail: { ...listItemFromRow(row), setup: row.setup }, role: row.role } : null;
   }
 
-  /** The caller's role in a live map's team and the team's id, or null (no such live map). Role null: not a member. */
-  async roleForMap(mapId: string, userId: string): Promise<{ teamId: string; role: TeamRole | null } | null> {
-    const rows = await selectRows<{ team_id: string; role: TeamRole | null }>(
+  /**
+   * What a route needs to act on a live map without loading it: its team, its title, the caller's role in the team
+   * (null: not a member) and the caller's name and address (for views and mention mails). Null: no such live map.
+   */
+  async accessContext(mapId: string, userId: string): Promise<MapAccessContext | null> {
+    const rows = await selectRows<{ team_id: string; title: string; role: TeamRole | null; email: string | null; display_name: string | null }>(
       this.em,
-      `select m.team_id, ms.role from maps m
+      `select m.team_id, m.title, ms.role, u.email, u.display_name from maps m
        left join memberships ms on ms.team_id = m.team_id and ms.user_id = ?
+       left join users u on u.id = ?
        where m.id = ? and m.deleted_at is null`,
-      [userId, mapId],
+      [userId, userId, mapId],
     );
-    return rows[0] ? { teamId: rows[0].team_id, role: rows[0].role } : null;
+    const row = rows[0];
+    if (!row) return null;
+    return { mapId, teamId: row.team_id, mapTitle: row.title, role: row.role, caller: { id: userId, email: row.email ?? '', displayName: row.display_name ?? '' } };
   }
 
   /** Live maps of a team, searched in title and tags (case-insensitive), with a tag if given, sorted and paged. */

@@ -11,6 +11,7 @@ import type { UploadedBytes } from '../common/uploaded-file';
 import type { AuthUser } from '../common/current-user.decorator';
 import { fieldError } from '../common/validation';
 import { TeamAccessService } from '../teams/team-access.service';
+import { roleAtLeast } from '../teams/team-role';
 import type { Team } from '../teams/team.entity';
 import { User } from '../users/user.entity';
 import type { CreateMapDto, DuplicateMapDto, ListMapsQueryDto, PutResultSummaryDto, RestoreVersionDto, UpdateMapDto } from './dto/map.dto';
@@ -74,8 +75,16 @@ export class MapsService {
 
   /** Applies an edit based on `expectedVersion`; a stale one gets 409 with the current map. */
   async update(mapId: string, caller: AuthUser, dto: UpdateMapDto): Promise<MapDetail> {
-    const { map } = await this.mapAccess.load(mapId, caller.id, 'editor');
-    if (dto.expectedVersion !== map.version) throw versionConflict('map', toMapDetail(map));
+    // Check access and the version with one plain statement first: a stale save (common when several people
+    // edit one map) answers its 409 with the current map without loading entities.
+    const current = UUID.test(mapId) ? await this.reads.detailWithRole(mapId.toLowerCase(), caller.id) : null;
+    if (!current?.role) throw mapNotFound();
+    if (!roleAtLeast(current.role, 'editor')) await this.teamAccess.requireRole(current.detail.teamId, caller.id, 'editor');
+    if (dto.expectedVersion !== current.detail.version) throw versionConflict('map', current.detail);
+    // The entity alone (no people, summary or thumbnail): the answer is read back in plain SQL after the save.
+    const map = await this.em.findOne(SavedMap, { id: current.detail.id, deletedAt: null });
+    if (!map) throw mapNotFound();
+    if (dto.expectedVersion !== map.version) throw versionConflict('map', (await this.reads.detailWithRole(map.id, caller.id))?.detail ?? current.detail);
     const setup = dto.setup === undefined ? undefined : validSetupOrThrow(dto.setup);
     const before = { title: map.title, description: map.description, tags: map.tags, setup: map.setup };
     const after = {
@@ -85,7 +94,7 @@ export class MapsService {
       setup: setup ?? map.setup,
     };
     // Saving the same content again makes no new version.
-    if (diffMapContent(before, after).length === 0) return toMapDetail(map);
+    if (diffMapContent(before, after).length === 0) return current.detail;
     Object.assign(map, after);
     return this.saveNewVersion(map, caller, {});
   }
@@ -228,8 +237,9 @@ export class MapsService {
       if (!current) throw mapNotFound();
       throw versionConflict('map', toMapDetail(current));
     }
-    await this.em.populate(map, ['updatedBy']);
-    return toMapDetail(map);
+    const saved = await this.reads.detailWithRole(map.id, caller.id);
+    if (!saved) throw mapNotFound();
+    return saved.detail;
   }
 
   private async findVersion(map: SavedMap, number: number): Promise<MapVersion> {

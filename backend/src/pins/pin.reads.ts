@@ -74,6 +74,12 @@ export class PinReads {
     return rows[0] ? pinFromRow(rows[0]) : null;
   }
 
+  /** A pin's id, title and map, or null. */
+  async mapOfPin(pinId: string): Promise<{ pinId: string; title: string; mapId: string } | null> {
+    const rows = await selectRows<{ id: string; title: string; map_id: string }>(this.em, 'select p.id, p.title, p.map_id from pins p where p.id = ?', [pinId]);
+    return rows[0] ? { pinId: rows[0].id, title: rows[0].title, mapId: rows[0].map_id } : null;
+  }
+
   /** A pin's thread, oldest reply first. */
   async detail(pin: PinView): Promise<PinDetail> {
     const rows = await selectRows<{ id: string; body: string; created_at: Date | string; author_id: string | null; author_name: string | null }>(

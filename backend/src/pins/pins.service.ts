@@ -9,7 +9,7 @@ import { MapEventsService } from '../live/map-events.service';
 import { MailService } from '../mail/mail.service';
 import { MapAccessService } from '../maps/map-access.service';
 import { versionConflict } from '../maps/map-errors';
-import type { SavedMap } from '../maps/map.entity';
+import { SavedMap } from '../maps/map.entity';
 import { Membership } from '../teams/membership.entity';
 import { roleAtLeast, type TeamRole } from '../teams/team-role';
 import { User } from '../users/user.entity';
@@ -36,9 +36,9 @@ function geometryOrThrow(value: unknown): PinGeometry {
 
 /** A mention to notify once the change it belongs to is stored. */
 interface PendingMention {
-  pin: Pin;
-  map: SavedMap;
-  author: User;
+  pin: { id: string; title: string };
+  map: { id: string; title: string; teamId: string };
+  author: { email: string; displayName: string };
   text: string;
   previousText: string | null;
   inReply: boolean;
@@ -68,27 +68,24 @@ export class PinsService {
   }
 
   async create(mapId: string, caller: AuthUser, dto: CreatePinDto): Promise<PinView> {
-    const { map } = await this.mapAccess.load(mapId, caller.id, 'editor');
+    // The access check and the author's name come from one plain statement; the map and the author are only
+    // references here (nothing else of them is read or written), so the unit of work holds just the new pin.
+    const access = await this.mapAccess.requireRoleForMap(mapId, caller.id, 'editor');
     const geometry = geometryOrThrow(dto.geometry);
-    const author = await this.em.findOneOrFail(User, caller.id);
-    const pin = new Pin(map, author, geometry, dto.title, this.clock.now());
+    const pin = new Pin(this.em.getReference(SavedMap, access.mapId), this.em.getReference(User, caller.id), geometry, dto.title, this.clock.now());
     pin.body = dto.body ?? '';
     pin.category = dto.category ?? null;
     this.em.persist(pin);
-    await this.events.flushAndRecord(this.em, map.id, () => ({ kind: 'pin.created', actorId: caller.id, data: { pin: toPinView(pin) } }));
-    await this.notifyMentions({ pin, map, author, text: pin.body, previousText: null, inReply: false });
-    return toPinView(pin);
+    const view = () => ({ ...toPinView(pin), author: { id: caller.id, displayName: access.caller.displayName } });
+    await this.events.flushAndRecord(this.em, access.mapId, () => ({ kind: 'pin.created', actorId: caller.id, data: { pin: view() } }));
+    await this.notifyMentions({ pin, map: { id: access.mapId, title: access.mapTitle, teamId: access.teamId }, author: access.caller, text: pin.body, previousText: null, inReply: false });
+    return view();
   }
 
   async get(pinId: string, caller: AuthUser): Promise<PinDetail> {
     const pin = UUID.test(pinId) ? await this.reads.pin(pinId.toLowerCase()) : null;
     if (!pin) throw pinNotFound();
-    try {
-      await this.mapAccess.requireRoleForMap(pin.mapId, caller.id, 'viewer');
-    } catch (error) {
-      if (error instanceof NotFoundException) throw pinNotFound();
-      throw error;
-    }
+    await this.requirePinAccess(pin.mapId, caller, 'viewer');
     return this.reads.detail(pin);
   }
 
@@ -130,7 +127,7 @@ export class PinsService {
       if (!current) throw pinNotFound();
       throw versionConflict('pin', toPinView(current));
     }
-    await this.notifyMentions({ pin, map, author: by, text: pin.body, previousText: previousBody, inReply: false });
+    await this.notifyMentions({ pin, map: { id: map.id, title: map.title, teamId: map.team.id }, author: by, text: pin.body, previousText: previousBody, inReply: false });
     return toPinView(pin);
   }
 
@@ -141,17 +138,27 @@ export class PinsService {
   }
 
   async reply(pinId: string, caller: AuthUser, dto: CreateReplyDto): Promise<PinReplyView> {
-    const { pin, map } = await this.load(pinId, caller, 'viewer');
-    const author = await this.em.findOneOrFail(User, caller.id);
-    const reply = new PinReply(pin, author, dto.body, this.clock.now());
+    // Plain-statement access check (see create); the unit of work holds just the new reply.
+    const found = UUID.test(pinId) ? await this.reads.mapOfPin(pinId.toLowerCase()) : null;
+    if (!found) throw pinNotFound();
+    const access = await this.requirePinAccess(found.mapId, caller, 'viewer');
+    const reply = new PinReply(this.em.getReference(Pin, found.pinId), this.em.getReference(User, caller.id), dto.body, this.clock.now());
     this.em.persist(reply);
-    await this.events.flushAndRecord(this.em, map.id, async (tx) => ({
+    const view: PinReplyView = { id: reply.id, author: { id: caller.id, displayName: access.caller.displayName }, body: reply.body, createdAt: reply.createdAt.toISOString() };
+    await this.events.flushAndRecord(this.em, access.mapId, async (tx) => ({
       kind: 'pin.replied',
       actorId: caller.id,
-      data: { pinId: pin.id, reply: toReplyView(reply), replyCount: await tx.count(PinReply, { pin: pin.id }) },
+      data: { pinId: found.pinId, reply: view, replyCount: await tx.count(PinReply, { pin: found.pinId }) },
     }));
-    await this.notifyMentions({ pin, map, author, text: reply.body, previousText: null, inReply: true });
-    return toReplyView(reply);
+    await this.notifyMentions({
+      pin: { id: found.pinId, title: found.title },
+      map: { id: access.mapId, title: access.mapTitle, teamId: access.teamId },
+      author: access.caller,
+      text: reply.body,
+      previousText: null,
+      inReply: true,
+    });
+    return view;
   }
 
   /** A reply can be removed by its author, or by an editor or owner. */
@@ -169,6 +176,16 @@ export class PinsService {
       actorId: caller.id,
       data: { pin: { ...toPinView(pin), replyCount: await tx.count(PinReply, { pin: pin.id }) } },
     }));
+  }
+
+  /** The plain-statement access check for a pin's map: a pin on a map the caller may not see is "no such pin". */
+  private async requirePinAccess(mapId: string, caller: AuthUser, minimumRole: TeamRole) {
+    try {
+      return await this.mapAccess.requireRoleForMap(mapId, caller.id, minimumRole);
+    } catch (error) {
+      if (error instanceof NotFoundException) throw pinNotFound();
+      throw error;
+    }
   }
 
   private async load(pinId: string, caller: AuthUser, minimumRole: TeamRole): Promise<{ pin: Pin; map: SavedMap; membership: Membership }> {
@@ -192,7 +209,7 @@ export class PinsService {
     const before = new Set(m.previousText ? mentionedEmails(m.previousText) : []);
     const emails = mentionedEmails(m.text).filter((e) => !before.has(e) && e !== m.author.email);
     if (emails.length === 0) return;
-    const members = await this.em.find(Membership, { team: m.map.team, user: { email: { $in: emails } } }, { populate: ['user'] });
+    const members = await this.em.find(Membership, { team: m.map.teamId, user: { email: { $in: emails } } }, { populate: ['user'] });
     const publicUrl = this.config.get('publicUrl', { infer: true });
     const link = `${publicUrl}/maps/${m.map.id}?pin=${m.pin.id}`;
     await Promise.all(
