@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import { MailService } from '../src/mail/mail.service';
 import type { CapturedMessage } from '../src/mail/mail-fake';
-import type { TestApp } from './test-app';
+import { startTestApp, type TestApp, type TestClock } from './test-app';
 
 export interface Reply<T = any> {
   status: number;
@@ -97,4 +97,11 @@ export async function joinWithRole(server: TestApp, owner: Account, teamId: stri
   const res = await call(server, 'POST', `/invitations/${encodeURIComponent(token)}/register`, { body: { displayName, password: PASSWORD } });
   if (res.status !== 201) throw new Error(`accept failed: ${res.status} ${JSON.stringify(res.body)}`);
   return { id: res.body.user.id, email, password: PASSWORD, displayName, token: res.body.accessToken, cookie: res.refreshCookie! };
+}
+
+/** An application on `clock` with one registered owner and their team: the start of the invitation specs. */
+export async function startAppWithTeam(clock: TestClock, ownerLabel: string, teamName: string): Promise<{ server: TestApp; owner: Account; teamId: string }> {
+  const server = await startTestApp({}, { clock });
+  const owner = await registerAccount(server, ownerLabel);
+  return { server, owner, teamId: await createTeam(server, owner, teamName) };
 }

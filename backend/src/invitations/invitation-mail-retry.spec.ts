@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { call, createTeam, PASSWORD, registerAccount, tokenFromMail, uniqueEmail, waitForMail, type Account } from '../../test/http';
-import { startTestApp, TestClock, type TestApp } from '../../test/test-app';
+import { call, PASSWORD, registerAccount, startAppWithTeam, tokenFromMail, uniqueEmail, waitForMail, type Account } from '../../test/http';
+import { TestClock, type TestApp } from '../../test/test-app';
 import { MailService } from '../mail/mail.service';
 import { InvitationMailRetryService } from './invitation-mail-retry.service';
 import { mailRetryDelaySeconds } from './invitations.service';
@@ -23,9 +23,7 @@ describe('invitation e-mail while the mail server is down', () => {
   let teamId: string;
   const clock = new TestClock();
   beforeAll(async () => {
-    server = await startTestApp({}, { clock });
-    owner = await registerAccount(server, 'mailowner');
-    teamId = await createTeam(server, owner, 'Outage group');
+    ({ server, owner, teamId } = await startAppWithTeam(clock, 'mailowner', 'Outage group'));
   });
   afterAll(async () => {
     await server.close();

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { call, createTeam, PASSWORD, registerAccount, tokenFromMail, uniqueEmail, waitForMail, type Account } from '../../test/http';
-import { startTestApp, TestClock, type TestApp } from '../../test/test-app';
+import { call, createTeam, PASSWORD, registerAccount, startAppWithTeam, tokenFromMail, uniqueEmail, waitForMail, type Account } from '../../test/http';
+import { TestClock, type TestApp } from '../../test/test-app';
 
 const DAY = 24 * 3600 * 1000;
 
@@ -10,9 +10,7 @@ describe('invitations through the local SMTP fake', () => {
   let teamId: string;
   const clock = new TestClock();
   beforeAll(async () => {
-    server = await startTestApp({}, { clock });
-    owner = await registerAccount(server, 'inviter');
-    teamId = await createTeam(server, owner, 'Polarizability group');
+    ({ server, owner, teamId } = await startAppWithTeam(clock, 'inviter', 'Polarizability group'));
   });
   afterAll(async () => {
     await server.close();
