@@ -2,28 +2,14 @@
  * The command line, run as a separate process through tsx (the TypeScript source, so no build is
  * needed), compared with the engine's `levels` called directly in this process.
  */
-import { spawnSync } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { levels } from '../levels/levels.js';
 import { ENGINE_VERSION } from '../version.js';
 import type { LevelsJson } from './levelsCommand.js';
-import { main } from './main.js';
+import { captureCli, runCli } from '../../test/cliRunner.js';
 
-const shared = fileURLToPath(new URL('../..', import.meta.url));
-const entry = fileURLToPath(new URL('./run.ts', import.meta.url));
-
-function run(args: string[]): { status: number | null; stdout: string; stderr: string } {
-  const r = spawnSync(process.execPath, ['--import', 'tsx', entry, ...args], { cwd: shared, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
-
-async function capture(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await main(argv, { out: (t) => (out += t + '\n'), err: (t) => (err += t + '\n') });
-  return { code, out, err };
-}
+const run = runCli;
+const capture = captureCli;
 
 describe('fieldbound levels (spawned process)', () => {
   it('--json prints exactly one JSON object whose states equal levels() called directly (consistency with the direct solver)', () => {

@@ -3,11 +3,9 @@
  * module called in this process (bindingMap → phaseMap → mapCsvChunks / mapJsonText), and its input
  * errors; the row-block stitching on its own.
  */
-import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import { mapCsvChunks } from '../export/mapCsv.js';
 import { mapJsonText } from '../export/mapJson.js';
@@ -19,25 +17,14 @@ import { defaultSetup } from '../setup/presets.js';
 import type { MapSetup } from '../setup/mapSetup.js';
 import { ENGINE_VERSION } from '../version.js';
 import { assembleBlocks, rowBlocks, shapeOfModel } from './assembleBlocks.js';
-import { main } from './main.js';
+import { captureCli, runCli, spawnCli } from '../../test/cliRunner.js';
 import { checkOutputSize, parseMapArgs, writeExport } from './mapCommand.js';
 
-const shared = fileURLToPath(new URL('../..', import.meta.url));
-const entry = fileURLToPath(new URL('./run.ts', import.meta.url));
 const dir = mkdtempSync(join(tmpdir(), 'fieldbound-map-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-function run(args: string[]): { status: number | null; stdout: string; stderr: string } {
-  const r = spawnSync(process.execPath, ['--import', 'tsx', entry, ...args], { cwd: shared, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
-
-async function capture(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await main(argv, { out: (t) => (out += t + '\n'), err: (t) => (err += t + '\n') });
-  return { code, out, err };
-}
+const run = runCli;
+const capture = captureCli;
 
 function smallSetup(motion: MapSetup['motion']): MapSetup {
   return { ...defaultSetup(), grid: { nAlpha: 14, nField: 11 }, orbitals: { mMax: 3 }, motion, ion: { massNumber: 133 } };
@@ -90,7 +77,7 @@ describe('fieldbound map: Ctrl-C', () => {
   it('SIGINT while the workers run: they are stopped, nothing is written, exit code 130', async () => {
     const setup = { ...smallSetup({ kind: 'temperature', kelvin: 1 }), grid: { nAlpha: 400, nField: 400 }, orbitals: { mMax: 12 } };
     const out = join(dir, 'cancelled.csv');
-    const child = spawn(process.execPath, ['--import', 'tsx', entry, 'map', writeSetup('big.json', setup), '--out', out, '--threads', '2'], { cwd: shared });
+    const child = spawnCli(['map', writeSetup('big.json', setup), '--out', out, '--threads', '2']);
     let stderr = '';
     const done = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((resolve) => child.on('exit', (code, signal) => resolve({ code, signal })));
     await new Promise<void>((resolve) => {

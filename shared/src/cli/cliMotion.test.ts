@@ -2,30 +2,16 @@
  * `fieldbound levels` with an ion motion: the command line (a spawned process and in-process) against
  * the engine called directly (levels → motionStates with motionSettingsFromSetup), and its argument errors.
  */
-import { spawnSync } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { levels } from '../levels/levels.js';
 import { motionStates } from '../motion/motionStates.js';
 import { motionSettingsFromSetup } from '../motion/phaseMap.js';
 import { CODATA2018 } from '../units/codata2018.js';
 import type { LevelsJson } from './levelsCommand.js';
-import { main } from './main.js';
+import { captureCli, runCli } from '../../test/cliRunner.js';
 
-const shared = fileURLToPath(new URL('../..', import.meta.url));
-const entry = fileURLToPath(new URL('./run.ts', import.meta.url));
-
-function run(args: string[]): { status: number | null; stdout: string; stderr: string } {
-  const r = spawnSync(process.execPath, ['--import', 'tsx', entry, ...args], { cwd: shared, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
-
-async function capture(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await main(argv, { out: (t) => (out += t + '\n'), err: (t) => (err += t + '\n') });
-  return { code, out, err };
-}
+const run = runCli;
+const capture = captureCli;
 
 const POINT = ['levels', '--alpha', '1000', '--field', '30', '--field-unit', 'tesla', '--cutoff', '2', '--m-max', '4'];
 const FIELD_AU = 30 / CODATA2018.atomicFieldInTesla;
