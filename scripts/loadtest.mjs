@@ -1,18 +1,22 @@
 // `npm run loadtest`: the built server under a realistic mix of reads and writes from many clients.
 // Starts (or reuses) the local PostgreSQL cluster, creates a fresh database `fieldbound_loadtest` with the
 // demo seed, runs the built backend on 127.0.0.1:FIELDBOUND_LOADTEST_PORT (3195), signs in the demo people,
-// and replays with autocannon: list maps, open a map and its pins, read the lecture's viewing link, add pins,
-// reply, save setups with expectedVersion. Bounded in time (--duration) and requests (--max-requests).
+// and replays a mix from many clients: list maps, open a map and its pins, read the lecture's viewing link, add pins,
+// reply, save setups with expectedVersion (clients with think time, or autocannon's closed loop for the capacity). Bounded in time (--duration) and requests (--max-requests).
 // Prints a table per kind of request and writes the figures to docs/loadtest.md (--no-write to skip).
 //
-// Options: --connections N (200) --duration S (60) --max-requests N (600000) --warmup S (5) --no-build --no-write
-//          --keep-db (leave the database for inspection).
-//          --profile: instead of the mix, each kind of request alone from 4 connections, with the CPU the server
-//          process and the PostgreSQL processes spend per request (from /proc), to see where the time goes. The cluster stays up afterwards (`npm run db:down` stops it).
+// Options: --connections N (200) --duration S (60) --think-ms T (2000: each client pauses T ms on average before each
+//          request; 0 = closed loop with autocannon, no pause: the capacity) --max-requests N (600000) --warmup S (5)
+//          --no-build --no-write
+//          --keep-db (leave the database for inspection)
+//          --profile (instead of the mix, each kind of request alone from 4 connections, with the CPU the server
+//          process and the PostgreSQL processes spend per request, from /proc: where the time goes).
+// The cluster stays up afterwards (`npm run db:down` stops it).
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { spawn } from 'node:child_process';
+import http from 'node:http';
 import { performance } from 'node:perf_hooks';
 import { repoRoot } from './lib/paths.mjs';
 import { step, failAndExit, BootstrapError } from './lib/log.mjs';
@@ -37,7 +41,7 @@ const TARGET_P99 = { read: 100, write: 250 };
 const WRITE_KINDS = new Set(['add pin', 'reply', 'save setup']);
 
 function parseArgs(argv) {
-  const opts = { connections: 200, duration: 60, maxRequests: 600_000, warmup: 5, build: true, write: true, keepDb: false, profile: false };
+  const opts = { connections: 200, duration: 60, maxRequests: 600_000, warmup: 5, build: true, write: true, keepDb: false, profile: false, thinkMs: 2000 };
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i];
     const number = () => {
@@ -53,6 +57,7 @@ function parseArgs(argv) {
     else if (arg === '--no-write') opts.write = false;
     else if (arg === '--keep-db') opts.keepDb = true;
     else if (arg === '--profile') opts.profile = true;
+    else if (arg === '--think-ms') opts.thinkMs = number();
     else throw new BootstrapError(`unknown option ${arg}; see the head of scripts/loadtest.mjs`);
   }
   if (opts.connections < 1 || opts.duration < 1) throw new BootstrapError('--connections and --duration must be at least 1');
@@ -309,16 +314,14 @@ async function main() {
     }
     const loadBefore = loadAverage();
     cpuBefore = readProcCpu(server.pid);
-    step(`load: ${opts.connections} connections for ${opts.duration} s (at most ${opts.maxRequests} requests); load average before ${loadBefore}`);
+    const paced = opts.thinkMs > 0;
+    step(
+      `load: ${opts.connections} ${paced ? `clients, each pausing ${opts.thinkMs} ms on average before each request,` : 'connections with no pause (closed loop),'} for ${opts.duration} s (at most ${opts.maxRequests} requests); load average before ${loadBefore}`,
+    );
     const started = Date.now();
-    const result = await autocannon({
-      url: BASE,
-      connections: opts.connections,
-      duration: opts.duration,
-      maxOverallRequests: opts.maxRequests,
-      requests,
-      timeout: 10,
-    });
+    const result = paced
+      ? await pacedRun({ requests, clients: opts.connections, seconds: opts.duration, thinkMs: opts.thinkMs, maxRequests: opts.maxRequests, timeoutMs: 10_000 })
+      : await autocannon({ url: BASE, connections: opts.connections, duration: opts.duration, maxOverallRequests: opts.maxRequests, requests, timeout: 10 });
     const seconds = (Date.now() - started) / 1000;
     const serverCpu = (readProcCpu(server.pid) - cpuBefore) / seconds;
     const loadAfter = loadAverage();
@@ -338,12 +341,13 @@ async function main() {
       `p99 writes ${writes.p99.toFixed(1)} ms — target < ${TARGET_P99.write} ms`,
     ];
     const pass = reads.errors + writes.errors + connectionErrors === 0 && reads.throttled + writes.throttled === 0 && reads.p99 < TARGET_P99.read && writes.p99 < TARGET_P99.write;
-    const summaryLine = `${reads.requests + writes.requests} requests in ${seconds.toFixed(1)} s (${((reads.requests + writes.requests) / seconds).toFixed(0)} per second), ${opts.connections} connections; server process CPU ${(serverCpu * 100).toFixed(0)} % of one core; load average before ${loadBefore}, after ${loadAfter}`;
+    const clientsText = paced ? `${opts.connections} clients pausing ${opts.thinkMs} ms on average (exponential) before each request` : `${opts.connections} connections, closed loop (no pause)`;
+    const summaryLine = `${reads.requests + writes.requests} requests in ${seconds.toFixed(1)} s (${((reads.requests + writes.requests) / seconds).toFixed(0)} per second), ${clientsText}; server process CPU ${(serverCpu * 100).toFixed(0)} % of one core; load average before ${loadBefore}, after ${loadAfter}`;
     console.log(`\n${table(rows)}\n\n${summaryLine}\n${verdict.join('\n')}\n${pass ? 'PASS' : 'FAIL'}: targets ${pass ? 'met' : 'not met'}`);
     if (reads.errors + writes.errors) console.log(`status codes per kind: ${JSON.stringify(statuses)}`);
 
     if (opts.write) {
-      writeDoc({ opts, rows, summaryLine, verdict, pass, statuses });
+      writeDoc({ opts, rows, summaryLine, verdict, pass, statuses, mode: paced ? 'paced' : 'closed' });
       step('figures written to docs/loadtest.md');
     }
     process.exitCode = pass ? 0 : 1;
@@ -365,14 +369,15 @@ async function profileKinds({ sessions, teamId, saveMaps }, autocannon, serverPi
   const pins = await api('GET', `/api/maps/${saveMaps[0]}/pins`, { token: editor.token });
   const pinId = (Array.isArray(pins) ? pins : pins.items)[0].id;
   const postJson = (path, body) => ({ method: 'POST', path, headers: { ...auth, 'content-type': 'application/json' }, body: JSON.stringify(body) });
-  // Each connection saves its own map with the version its last answer gave, so every save lands (no 409s).
+  // Saves go round robin over 20 maps with the version the last answer for that map gave, so with 4 requests in
+  // flight nearly every save lands (autocannon starts a fresh context for every request of a one-request list).
   const saveVersions = new Map();
-  for (const mapId of saveMaps.slice(10, 14)) saveVersions.set(mapId, (await api('GET', `/api/maps/${mapId}`, { token: editor.token })).version);
+  for (const mapId of saveMaps.slice(10, 30)) saveVersions.set(mapId, (await api('GET', `/api/maps/${mapId}`, { token: editor.token })).version);
   let saveSlots = 0;
   const saveSetup = {
     setupRequest: (req, context) => {
-      context.map ??= saveMaps[10 + (saveSlots++ % 4)];
-      context.version ??= saveVersions.get(context.map);
+      context.map = saveMaps[10 + (saveSlots++ % 20)];
+      context.version = saveVersions.get(context.map);
       return {
         ...req, method: 'PATCH', path: `/api/maps/${context.map}`, headers: { ...auth, 'content-type': 'application/json' },
         body: JSON.stringify({ expectedVersion: context.version, description: `Profile save ${context.version}` }),
@@ -441,6 +446,61 @@ function postgresCpu(cluster) {
   return total;
 }
 
+/**
+ * Clients with think time: each of `clients` simulated people repeats the request cycle, pausing a random time
+ * (exponential, mean `thinkMs`, so the clients do not fall into step) before each request, over its own
+ * keep-alive connection. Uses the same request builders as the autocannon run (setupRequest/onResponse with a
+ * context per cycle), so both modes replay the same mix. Returns autocannon's error and timeout counts' shape.
+ */
+async function pacedRun({ requests, clients, seconds, thinkMs, maxRequests, timeoutMs }) {
+  const until = performance.now() + seconds * 1000;
+  const agent = new http.Agent({ keepAlive: true, maxSockets: clients });
+  const counts = { errors: 0, timeouts: 0, sent: 0 };
+  const pause = () => new Promise((resolve) => setTimeout(resolve, -Math.log(1 - Math.random()) * thinkMs));
+  const send = (req) =>
+    new Promise((resolve) => {
+      const body = req.body === undefined ? undefined : Buffer.from(req.body);
+      const request = http.request(
+        { host: '127.0.0.1', port: PORT, method: req.method, path: req.path, agent, headers: { ...req.headers, ...(body ? { 'content-length': body.length } : {}) }, timeout: timeoutMs },
+        (response) => {
+          const chunks = [];
+          response.on('data', (chunk) => chunks.push(chunk));
+          response.on('end', () => resolve({ status: response.statusCode, body: Buffer.concat(chunks).toString('utf8') }));
+          response.on('error', () => resolve(null));
+        },
+      );
+      request.on('timeout', () => {
+        counts.timeouts++;
+        request.destroy(new Error('timeout'));
+      });
+      request.on('error', () => resolve(null));
+      request.end(body);
+    });
+  const client = async () => {
+    // Start spread over one think time, as people arriving, not all at once.
+    await pause();
+    while (performance.now() < until && counts.sent < maxRequests) {
+      const context = {};
+      for (const step of requests) {
+        if (performance.now() >= until || counts.sent >= maxRequests) return;
+        const req = step.setupRequest({}, context);
+        counts.sent++;
+        const answer = await send(req);
+        if (!answer) {
+          counts.errors++;
+          // No answer to record: the cycle cannot go on from here; start a new one after a pause.
+          break;
+        }
+        step.onResponse(answer.status, answer.body, context);
+        await pause();
+      }
+    }
+  };
+  await Promise.all(Array.from({ length: clients }, client));
+  agent.destroy();
+  return counts;
+}
+
 /** User + system CPU seconds of a process so far (Linux /proc). */
 function readProcCpu(pid) {
   try {
@@ -451,16 +511,20 @@ function readProcCpu(pid) {
   }
 }
 
-function writeDoc({ opts, rows, summaryLine, verdict, pass, statuses }) {
+/** Replaces the section of this mode (paced: the targets; closed: the capacity) in docs/loadtest.md. */
+function writeDoc({ opts, rows, summaryLine, verdict, pass, statuses, mode }) {
   const file = path.join(repoRoot, 'docs', 'loadtest.md');
   const cpu = os.cpus();
-  const marker = '<!-- loadtest:results -->';
-  const results = [
-    marker,
-    `## Last run: ${new Date().toISOString().replace(/\.\d+Z$/, ' UTC').replace('T', ' ')}`,
+  const start = `<!-- loadtest:${mode}:start -->`;
+  const end = `<!-- loadtest:${mode}:end -->`;
+  const title = mode === 'paced' ? 'Last run with think time (the targets)' : 'Last closed-loop run (capacity, no think time)';
+  const command = `npm run loadtest -- --connections ${opts.connections} --duration ${opts.duration} --think-ms ${opts.thinkMs}`;
+  const section = [
+    start,
+    `### ${title}: ${new Date().toISOString().replace(/\.\d+Z$/, ' UTC').replace('T', ' ')}`,
     '',
-    `Machine: ${cpu.length} × ${cpu[0]?.model.trim() ?? 'unknown CPU'}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}; the load generator, the server and PostgreSQL share these cores (and other work ran at the same time: see the load average).`,
-    `Run: \`npm run loadtest -- --connections ${opts.connections} --duration ${opts.duration}\`.`,
+    `Machine: ${cpu.length} × ${cpu[0]?.model.trim() ?? 'unknown CPU'}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}; the load generator, the server and PostgreSQL share these cores (other work may have run too: see the load average).`,
+    `Run: \`${command}\`.`,
     '',
     table(rows),
     '',
@@ -476,11 +540,13 @@ function writeDoc({ opts, rows, summaryLine, verdict, pass, statuses }) {
     JSON.stringify(statuses, null, 1),
     '```',
     '</details>',
-    '',
+    end,
   ].join('\n');
-  const existing = fs.existsSync(file) ? fs.readFileSync(file, 'utf8') : '';
-  const head = existing.includes(marker) ? existing.slice(0, existing.indexOf(marker)) : `# Load test\n\n(see scripts/loadtest.mjs)\n\n`;
-  fs.writeFileSync(file, head + results);
+  const existing = fs.existsSync(file) ? fs.readFileSync(file, 'utf8') : '# Load test\n\n(see scripts/loadtest.mjs)\n';
+  const updated = existing.includes(start) && existing.includes(end)
+    ? existing.slice(0, existing.indexOf(start)) + section + existing.slice(existing.indexOf(end) + end.length)
+    : `${existing.trimEnd()}\n\n${section}\n`;
+  fs.writeFileSync(file, updated);
 }
 
 main().catch(failAndExit);
