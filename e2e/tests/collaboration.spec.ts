@@ -1,5 +1,6 @@
 import { defaultSetup } from '@fieldbound/shared';
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from '@playwright/test';
+import { NEW_ACCOUNT_PASSWORD, unique } from './support/journey';
 
 // Collaboration on a map with two people at once: an editor pins a region and a viewer of the team sees it appear
 // live and replies; the editor resolves it. A signed-out visitor opens a viewing link with pins, sees them without any
@@ -9,8 +10,6 @@ import { expect, test, type APIRequestContext, type BrowserContext, type Page } 
 // Two or three browser contexts computing maps in workers on a possibly busy 2-core machine.
 test.describe.configure({ timeout: 300_000 });
 
-const unique = () => Math.random().toString(36).slice(2, 10);
-const PASSWORD = 'field-induced anions';
 
 /**
  * The engine's default setup (the server validates it the same way). Imported like every other spec imports the
@@ -22,7 +21,7 @@ async function smallSetup(): Promise<Record<string, unknown>> {
 }
 
 async function register(request: APIRequestContext, name: string, email: string): Promise<string> {
-  const res = await request.post('/api/auth/register', { data: { email, password: PASSWORD, displayName: name } });
+  const res = await request.post('/api/auth/register', { data: { email, password: NEW_ACCOUNT_PASSWORD, displayName: name } });
   expect(res.status(), await res.text()).toBe(201);
   return ((await res.json()) as { accessToken: string }).accessToken;
 }
@@ -53,7 +52,7 @@ async function teamWithMap(editor: BrowserContext, viewer: BrowserContext | null
         { timeout: 30_000 },
       )
       .not.toBeNull();
-    const joined = await viewer.request.post(`/api/invitations/${encodeURIComponent(invitation!)}/register`, { data: { displayName: 'Tariq Viewer', password: PASSWORD } });
+    const joined = await viewer.request.post(`/api/invitations/${encodeURIComponent(invitation!)}/register`, { data: { displayName: 'Tariq Viewer', password: NEW_ACCOUNT_PASSWORD } });
     expect(joined.status(), await joined.text()).toBe(201);
   }
 

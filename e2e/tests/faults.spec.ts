@@ -1,4 +1,5 @@
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
+import { createMapFromPreset, registerWithTeam, unique } from './support/journey';
 
 // The engine worker killed while a map computes: the page says so with a Retry, Retry computes the map, and the rest
 // of the page (setup, saving, pins) keeps working. The kill goes through the app's `?faults` switch
@@ -6,37 +7,13 @@ import { expect, test, type APIRequestContext, type Page } from '@playwright/tes
 
 test.describe.configure({ timeout: 300_000 });
 
-const unique = () => Math.random().toString(36).slice(2, 10);
-const PASSWORD = 'field-induced anions';
 
 /** What the app adds to `window` when opened with ?faults. */
 // (The e2e project has no DOM typings: the page's globals are described here.)
 type FaultsWindow = { fieldboundFaults?: { killEngineWorkers(): number }; document: { querySelector(selector: string): unknown } };
 
-async function registerWithTeam(request: APIRequestContext, label: string): Promise<string> {
-  const id = unique();
-  const res = await request.post('/api/auth/register', { data: { email: `${label}-${id}@example.test`, password: PASSWORD, displayName: 'Fay Ultman' } });
-  expect(res.status()).toBe(201);
-  const { accessToken } = (await res.json()) as { accessToken: string };
-  const created = await request.post('/api/teams', { data: { name: `Fault group ${id}` }, headers: { Authorization: `Bearer ${accessToken}` } });
-  expect(created.status()).toBe(201);
-  return accessToken;
-}
-
-async function createMapFromPreset(page: Page, title: string, preset: string): Promise<string> {
-  await page.goto('/maps');
-  await page.getByRole('button', { name: 'New map' }).first().click();
-  const dialog = page.getByRole('dialog', { name: 'New map' });
-  await dialog.getByLabel('Title').fill(title);
-  await dialog.getByRole('combobox', { name: 'Regime' }).click();
-  await page.getByTitle(preset).click();
-  await dialog.getByRole('button', { name: 'Create map' }).click();
-  await expect(page).toHaveURL(/\/maps\/[0-9a-f-]+/);
-  return new URL(page.url()).pathname.split('/').pop()!;
-}
-
 test('the engine worker killed mid-computation: an error with Retry, Retry computes the map, the page keeps working', async ({ page }) => {
-  const token = await registerWithTeam(page.request, 'faults');
+  const token = await registerWithTeam(page.request, { label: 'faults', displayName: 'Fay Ultman', team: `Fault group ${unique()}` });
   const auth = { Authorization: `Bearer ${token}` };
   const title = `Crash drill ${unique()}`;
   const mapId = await createMapFromPreset(page, title, 'Pulsed-field facilities');
@@ -85,7 +62,7 @@ test('the engine worker killed mid-computation: an error with Retry, Retry compu
 });
 
 test('without the ?faults switch the page offers no way to kill workers', async ({ page }) => {
-  await registerWithTeam(page.request, 'nofaults');
+  await registerWithTeam(page.request, { label: 'nofaults', displayName: 'Fay Ultman', team: `Fault group ${unique()}` });
   const mapId = await createMapFromPreset(page, `Plain ${unique()}`, 'Pulsed-field facilities');
   await page.goto(`/maps/${mapId}`);
   await expect(page.getByTestId('save-state')).toContainText('Saved · version 1', { timeout: 60_000 });

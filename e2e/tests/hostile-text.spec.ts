@@ -1,28 +1,17 @@
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
+import { registerWithTeam, unique } from './support/journey';
 
 // HTML and script in a map title, a pin's title and body and a reply are stored as text and shown as text: on the
 // member's map page and on the read-only shared view the markup appears literally, and none of it runs.
 
 test.describe.configure({ timeout: 300_000 });
 
-const unique = () => Math.random().toString(36).slice(2, 10);
-const PASSWORD = 'field-induced anions';
 
 /** Each payload, if it ever ran, would set a flag on window or open a dialog. */
 const MAP_TITLE = `<script>window.__fieldboundPwned = 'map'</script><img src=x onerror="window.__fieldboundPwned='map-img'"> scan`;
 const PIN_TITLE = `<img src=x onerror="window.__fieldboundPwned='pin-title'">Check <b>this</b>`;
 const PIN_BODY = `<script>alert('pin body')</script>\n<svg onload="window.__fieldboundPwned='pin-svg'"></svg><a href="javascript:alert(1)">click</a>`;
 const REPLY = `<img src=x onerror="alert('reply')"> &lt;not an entity&gt;`;
-
-async function registerWithTeam(request: APIRequestContext): Promise<string> {
-  const id = unique();
-  const res = await request.post('/api/auth/register', { data: { email: `hostile-${id}@example.test`, password: PASSWORD, displayName: 'Mallory Tester' } });
-  expect(res.status()).toBe(201);
-  const { accessToken } = (await res.json()) as { accessToken: string };
-  const created = await request.post('/api/teams', { data: { name: `Escaping group ${id}` }, headers: { Authorization: `Bearer ${accessToken}` } });
-  expect(created.status()).toBe(201);
-  return accessToken;
-}
 
 /** Fails the test on any dialog and records script errors; answers a check that nothing ran. */
 function watch(page: Page) {
@@ -55,7 +44,7 @@ async function expectPinShownAsText(page: Page, panel: 'Thread' | 'Pin') {
 }
 
 test('markup in a map title, pin title, pin body and reply shows as literal text on the map page and the shared view, and never runs', async ({ page, browser }) => {
-  const token = await registerWithTeam(page.request);
+  const token = await registerWithTeam(page.request, { label: 'hostile', displayName: 'Mallory Tester', team: `Escaping group ${unique()}` });
   const auth = { Authorization: `Bearer ${token}` };
   const nothingRan = watch(page);
 

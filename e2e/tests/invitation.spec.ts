@@ -1,4 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
+import { NEW_ACCOUNT_PASSWORD, unique } from './support/journey';
 
 // One journey: an owner invites a colleague by e-mail; the colleague opens the local mailbox,
 // follows the link, creates an account and lands in the team.
@@ -6,15 +7,13 @@ import { expect, test, type Page } from '@playwright/test';
 // A whole journey with two accounts (argon2 hashing, several page loads) on a possibly busy 2-core machine.
 test.describe.configure({ timeout: 180_000 });
 
-const unique = () => Math.random().toString(36).slice(2, 10);
-const PASSWORD = 'field-induced anions';
 
 async function signUp(page: Page, name: string, email: string) {
   await page.goto('/sign-up');
   await page.getByLabel('Your name').fill(name);
   await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByLabel('Password again').fill(PASSWORD);
+  await page.getByLabel('Password', { exact: true }).fill(NEW_ACCOUNT_PASSWORD);
+  await page.getByLabel('Password again').fill(NEW_ACCOUNT_PASSWORD);
   await page.getByRole('button', { name: 'Create account' }).click();
 }
 
@@ -62,8 +61,8 @@ test('an owner invites a colleague, who accepts from the local mailbox, signs up
   await expect(page.getByRole('heading', { name: `Join ${team}` })).toBeVisible();
   await expect(page.getByText('editor — also creates, edits and deletes maps and pins')).toBeVisible();
   await page.getByLabel('Your name').fill('Lise Colleague');
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByLabel('Password again').fill(PASSWORD);
+  await page.getByLabel('Password', { exact: true }).fill(NEW_ACCOUNT_PASSWORD);
+  await page.getByLabel('Password again').fill(NEW_ACCOUNT_PASSWORD);
   await page.getByRole('button', { name: 'Create account and join' }).click();
 
   // In the team, on its maps page.
@@ -79,12 +78,12 @@ test('an owner invites a colleague, who accepts from the local mailbox, signs up
 test('a signed-out visitor is sent to sign in and brought back to the page they asked for', async ({ page, request }) => {
   const id = unique();
   const email = `returning-${id}@example.test`;
-  const res = await request.post('/api/auth/register', { data: { email, password: PASSWORD, displayName: 'Returning Visitor' } });
+  const res = await request.post('/api/auth/register', { data: { email, password: NEW_ACCOUNT_PASSWORD, displayName: 'Returning Visitor' } });
   expect(res.status()).toBe(201);
   await page.goto('/profile');
   await expect(page).toHaveURL(/\/sign-in\?next=%2Fprofile$/);
   await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password').fill(PASSWORD);
+  await page.getByLabel('Password').fill(NEW_ACCOUNT_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(/\/profile$/);
   await expect(page.getByText(`Signed in as ${email}.`)).toBeVisible();

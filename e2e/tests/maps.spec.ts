@@ -1,4 +1,5 @@
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
+import { createMapFromPreset, registerWithTeam, unique, waitForComputedMap } from './support/journey';
 
 // One journey: an editor creates a map from a preset, sees it computed, saves an edit, reloads and finds it; shares it
 // with a viewing link that a signed-out visitor opens read-only; revokes the link and the visitor is refused.
@@ -6,41 +7,14 @@ import { expect, test, type APIRequestContext, type Page } from '@playwright/tes
 // Computing a 256 × 256 map in the browser's workers on a possibly busy 2-core machine takes a while.
 test.describe.configure({ timeout: 300_000 });
 
-const unique = () => Math.random().toString(36).slice(2, 10);
-const PASSWORD = 'field-induced anions';
-
-/** Registers through the API (the browser context keeps the refresh cookie) and starts a team. */
-async function registerWithTeam(request: APIRequestContext, team: string): Promise<void> {
-  const id = unique();
-  const res = await request.post('/api/auth/register', { data: { email: `maps-${id}@example.test`, password: PASSWORD, displayName: 'Ada Mapper' } });
-  expect(res.status()).toBe(201);
-  const { accessToken } = (await res.json()) as { accessToken: string };
-  const created = await request.post('/api/teams', { data: { name: team }, headers: { Authorization: `Bearer ${accessToken}` } });
-  expect(created.status()).toBe(201);
-}
-
-async function createMapFromPreset(page: Page, title: string, preset: string) {
-  await page.goto('/maps');
-  await page.getByRole('button', { name: 'New map' }).first().click();
-  const dialog = page.getByRole('dialog', { name: 'New map' });
-  await dialog.getByLabel('Title').fill(title);
-  await dialog.getByRole('combobox', { name: 'Regime' }).click();
-  await page.getByTitle(preset).click();
-  await dialog.getByRole('button', { name: 'Create map' }).click();
-  await expect(page).toHaveURL(/\/maps\/[0-9a-f-]+/);
-  await expect(page.getByRole('heading', { name: title })).toBeVisible({ timeout: 60_000 });
-}
-
-async function waitForComputedMap(page: Page) {
-  await expect(page.getByText(/computed in [\d.]+ s/)).toBeVisible({ timeout: 240_000 });
-}
 
 test('an editor creates, computes, saves and shares a map; a signed-out visitor opens the link read-only until it is revoked', async ({ page, browser }) => {
   const id = unique();
   const title = `Alkali scan ${id}`;
-  await registerWithTeam(page.request, `Map group ${id}`);
+  await registerWithTeam(page.request, { label: 'maps', displayName: 'Ada Mapper', team: `Map group ${id}` });
 
   await createMapFromPreset(page, title, 'Pulsed-field facilities');
+  await expect(page.getByRole('heading', { name: title })).toBeVisible({ timeout: 60_000 });
   await waitForComputedMap(page);
   await expect(page.getByTestId('save-state')).toContainText('Saved · version 1');
 

@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
-import { VIEWPORT, bandTopY, guideShot, mapOverlay, signIn, probeRow, speciesX, waitForComputedMap } from './support/journey';
+import { bandTopY, guideShot, mapOverlay, NEW_ACCOUNT_PASSWORD, probeRow, signIn, speciesX, unique, VIEWPORT, waitForComputedMap } from './support/journey';
 
 // The theorist's journey: sign in, create a map from the laboratory preset, let it compute, mark candidate species
 // and the group's 20 T magnet, probe magnesium at 20 T (a bound region of orbital m = 0), save, and export the
@@ -10,19 +10,17 @@ test.use({ viewport: VIEWPORT, acceptDownloads: true });
 // A 256 × 256 map computed in the browser's workers on a possibly busy 2-core machine, plus two exports.
 test.describe.configure({ timeout: 420_000 });
 
-const unique = () => Math.random().toString(36).slice(2, 10);
-const PASSWORD = 'field-induced anions';
 
 test('a theorist computes a laboratory map, finds magnesium bound at 20 T with the probe, saves and exports the figure and the data', async ({ page, request }) => {
   const id = unique();
   const email = `theorist-${id}@example.test`;
   const title = `Shortlist at 20 T ${id}`;
   // An account with a team of its own (through the API), then signing in through the page as a person would.
-  const registered = await request.post('/api/auth/register', { data: { email, password: PASSWORD, displayName: 'Noor Theorist' } });
+  const registered = await request.post('/api/auth/register', { data: { email, password: NEW_ACCOUNT_PASSWORD, displayName: 'Noor Theorist' } });
   expect(registered.status()).toBe(201);
   const { accessToken } = (await registered.json()) as { accessToken: string };
   expect((await request.post('/api/teams', { data: { name: `Theory group ${id}` }, headers: { Authorization: `Bearer ${accessToken}` } })).status()).toBe(201);
-  await signIn(page, { email, password: PASSWORD });
+  await signIn(page, { email, password: NEW_ACCOUNT_PASSWORD });
 
   // A new map from the laboratory preset; the safety note stands beside the preset.
   await page.getByRole('button', { name: 'New map' }).first().click();

@@ -3,7 +3,7 @@
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { expect, type Locator, type Page } from '@playwright/test';
+import { expect, type APIRequestContext, type Locator, type Page } from '@playwright/test';
 
 /** The checkout: the nearest directory upwards from where Playwright runs that holds e2e/playwright.config.ts. */
 function findRepoRoot(): string {
@@ -53,6 +53,36 @@ export async function openMapByTitle(page: Page, title: string): Promise<void> {
 }
 
 /** Waits until the full-resolution map is computed (the status line names the time it took). */
+/** A short random suffix that keeps accounts, teams and titles of separate runs apart. */
+export const unique = () => Math.random().toString(36).slice(2, 10);
+export const NEW_ACCOUNT_PASSWORD = 'field-induced anions';
+
+/**
+ * Registers a new account through the API (the page's context keeps the refresh cookie, so the app opens signed
+ * in) and starts a team; returns the access token.
+ */
+export async function registerWithTeam(request: APIRequestContext, who: { label: string; displayName: string; team: string }): Promise<string> {
+  const res = await request.post('/api/auth/register', { data: { email: `${who.label}-${unique()}@example.test`, password: NEW_ACCOUNT_PASSWORD, displayName: who.displayName } });
+  expect(res.status()).toBe(201);
+  const { accessToken } = (await res.json()) as { accessToken: string };
+  const created = await request.post('/api/teams', { data: { name: who.team }, headers: { Authorization: `Bearer ${accessToken}` } });
+  expect(created.status()).toBe(201);
+  return accessToken;
+}
+
+/** Creates a map from a regime preset through the New map dialog; returns its id once its page is open. */
+export async function createMapFromPreset(page: Page, title: string, preset: string): Promise<string> {
+  await page.goto('/maps');
+  await page.getByRole('button', { name: 'New map' }).first().click();
+  const dialog = page.getByRole('dialog', { name: 'New map' });
+  await dialog.getByLabel('Title').fill(title);
+  await dialog.getByRole('combobox', { name: 'Regime' }).click();
+  await page.getByTitle(preset).click();
+  await dialog.getByRole('button', { name: 'Create map' }).click();
+  await expect(page).toHaveURL(/\/maps\/[0-9a-f-]+/);
+  return new URL(page.url()).pathname.split('/').pop()!;
+}
+
 export async function waitForComputedMap(page: Page): Promise<void> {
   await expect(page.getByText(/computed in [\d.]+ s/)).toBeVisible({ timeout: 240_000 });
 }
