@@ -6,29 +6,14 @@ import { applyMapEvent, applySharedEvent, connectLive, type LiveStatus } from '.
 import { pinKeys } from './pins';
 import { session } from './client';
 import { viewingLinkKeys } from './viewingLinks';
+import { testPin } from '../features/pins/testPin';
 
 afterEach(() => {
   vi.restoreAllMocks();
   session.set(null);
 });
 
-const pin = (over: Partial<PinView> = {}): PinView => ({
-  id: 'p1',
-  mapId: 'm1',
-  author: { id: 'u1', displayName: 'Ada' },
-  geometry: { kind: 'point', at: { alpha: 100, fieldTesla: 10 } },
-  title: 'Edge',
-  body: '',
-  status: 'open',
-  category: null,
-  version: 1,
-  createdAt: '2026-12-02T03:00:00Z',
-  updatedAt: '2026-12-02T03:00:00Z',
-  resolvedAt: null,
-  resolvedBy: null,
-  replyCount: 0,
-  ...over,
-});
+const pin = testPin;
 const base = { mapId: 'm1', at: '2026-12-02T03:00:00Z', actor: { id: 'u2', displayName: 'Kofi' } };
 
 function clientWithPins(pins: PinView[], detail?: PinDetail) {

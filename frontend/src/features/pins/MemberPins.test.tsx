@@ -5,29 +5,14 @@ import { fakeApi } from '../maps/testApi';
 import { renderWithProviders } from '../../test-utils';
 import { useMemberPins } from './MemberPins';
 import { testContext } from './testContext';
+import { testPin } from './testPin';
 
 afterEach(() => {
   vi.restoreAllMocks();
   localStorage.clear();
 });
 
-const pin = (over: Partial<PinView> = {}): PinView => ({
-  id: 'p1',
-  mapId: 'm1',
-  author: { id: 'u1', displayName: 'Ada' },
-  geometry: { kind: 'point', at: { alpha: 100, fieldTesla: 10 } },
-  title: 'Edge of the m = 0 region',
-  body: '',
-  status: 'open',
-  category: null,
-  version: 2,
-  createdAt: '2026-12-02T03:00:00Z',
-  updatedAt: '2026-12-02T03:00:00Z',
-  resolvedAt: null,
-  resolvedBy: null,
-  replyCount: 0,
-  ...over,
-});
+const pin = (over: Partial<PinView> = {}): PinView => testPin({ title: 'Edge of the m = 0 region', version: 2, ...over });
 
 /** The member pins of map m1 with the overlay drawn on a 400 × 300 plot (α and B 1…10⁴ on log axes). */
 function Harness({ canEdit }: { canEdit: boolean }) {

@@ -4,24 +4,22 @@ import type { PinDetail, PinView } from '@fieldbound/shared';
 import { fakeApi } from '../maps/testApi';
 import { renderWithProviders } from '../../test-utils';
 import { PinThread } from './PinThread';
+import { testPin } from './testPin';
 
 afterEach(() => vi.restoreAllMocks());
 
 const detail = (over: Partial<PinDetail> = {}): PinDetail => ({
-  id: 'p1',
-  mapId: 'm1',
-  author: { id: 'u1', displayName: 'Maren Solberg' },
-  geometry: { kind: 'point', at: { alpha: 290, fieldTesla: 45 } },
-  title: 'Cs near 45 T',
-  body: 'Bound here?\n<img src=x onerror="window.hacked=1"> <b>not bold</b>',
-  status: 'open',
-  category: 'candidate',
-  version: 4,
-  createdAt: '2026-12-01T10:00:00Z',
-  updatedAt: '2026-12-01T10:00:00Z',
-  resolvedAt: null,
-  resolvedBy: null,
-  replyCount: 1,
+  ...testPin({
+    author: { id: 'u1', displayName: 'Maren Solberg' },
+    geometry: { kind: 'point', at: { alpha: 290, fieldTesla: 45 } },
+    title: 'Cs near 45 T',
+    body: 'Bound here?\n<img src=x onerror="window.hacked=1"> <b>not bold</b>',
+    category: 'candidate',
+    version: 4,
+    createdAt: '2026-12-01T10:00:00Z',
+    updatedAt: '2026-12-01T10:00:00Z',
+    replyCount: 1,
+  }),
   replies: [{ id: 'r1', author: { id: 'u2', displayName: 'Kofi Mensah' }, body: 'Width is tiny at 4 K.', createdAt: '2026-12-01T11:00:00Z' }],
   ...over,
 });
