@@ -200,8 +200,13 @@ export const ExplorerPage = memo(function ExplorerPage({
   const onCompute = useCallback(() => {
     if (!check.valid) return;
     const axesChanged = check.valid.alphaAxis.min !== applied.alphaAxis.min || check.valid.alphaAxis.max !== applied.alphaAxis.max || check.valid.fieldAxis.min !== applied.fieldAxis.min || check.valid.fieldAxis.max !== applied.fieldAxis.max || check.valid.alphaAxis.scale !== applied.alphaAxis.scale || check.valid.fieldAxis.scale !== applied.fieldAxis.scale;
-    setApplied(check.valid);
-    if (axesChanged) setView(setupWindow(check.valid));
+    const next = check.valid;
+    // As a transition: the click itself only handles the input (the button's feedback paints at once); the page
+    // renders the new setup in slices in the next tasks, and the computation starts from there.
+    startTransition(() => {
+      setApplied(next);
+      if (axesChanged) setView(setupWindow(next));
+    });
   }, [check.valid, applied]);
 
   const setShown = useCallback(

@@ -1,5 +1,5 @@
 import { memo, useMemo, type ReactNode } from 'react';
-import { Button, Divider, Form, Input, Segmented, Select, Space, Tooltip, Typography } from 'antd';
+import { Button, ConfigProvider, Divider, Form, Input, Segmented, Select, Space, Tooltip, Typography } from 'antd';
 import { DeleteOutlined, PlusOutlined } from '@ant-design/icons';
 import { SETUP_LIMITS, SETUP_PRESETS, applyPreset, type AlphaUnit, type DisplayEnergyUnit, type FieldUnit, type IonMotion, type SetupIssue } from '@fieldbound/shared';
 import {
@@ -103,9 +103,12 @@ export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, on
     <>
       <SetupFields draft={draft} issues={issues} onChange={onChange} speciesOptions={speciesOptions} />
       <Space style={{ marginTop: 16, width: '100%' }} orientation="vertical">
-        <Button type="primary" block disabled={!needsCompute} onClick={onCompute}>
-          Compute
-        </Button>
+        {/* No click wave: its extra React root and animation land on the main thread just as a computation starts. */}
+        <ConfigProvider wave={{ disabled: true }}>
+          <Button type="primary" block disabled={!needsCompute} onClick={onCompute}>
+            Compute
+          </Button>
+        </ConfigProvider>
         {onSave && (
           <Button block onClick={onSave} disabled={issues.length > 0}>
             {saveLabel ?? 'Save setup'}

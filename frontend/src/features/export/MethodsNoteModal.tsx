@@ -26,8 +26,10 @@ async function copyText(text: string): Promise<void> {
 
 /** The methods note and its BibTeX, generated from the setup, each with a Copy button. */
 export function MethodsNoteModal({ open, onClose, setup, bindingMap }: MethodsNoteModalProps) {
-  const note = useMemo(() => methodsNote(setup, { engineVersion: bindingMap?.engineVersion ?? ENGINE_VERSION, binding: bindingMap ?? null }), [setup, bindingMap]);
-  const bibtex = useMemo(() => methodsBibtex(setup), [setup]);
+  // Written only while the dialog is open: the note reads the whole map, and the closed dialog re-renders with every
+  // computed map of the page.
+  const note = useMemo(() => (open ? methodsNote(setup, { engineVersion: bindingMap?.engineVersion ?? ENGINE_VERSION, binding: bindingMap ?? null }) : ''), [open, setup, bindingMap]);
+  const bibtex = useMemo(() => (open ? methodsBibtex(setup) : ''), [open, setup]);
   const [copied, setCopied] = useState<'note' | 'bibtex' | null>(null);
   const [copyError, setCopyError] = useState<string | null>(null);
   const copy = (what: 'note' | 'bibtex') => {
