@@ -7,6 +7,7 @@
 //
 // Options: --connections N (200) --duration S (60) --think-ms T (2000: each client pauses T ms on average before each
 //          request; 0 = closed loop with autocannon, no pause: the capacity) --max-requests N (600000) --warmup S (5)
+//          --streams-per-person N (15: live streams held open per demo person during a run with think time)
 //          --no-build --no-write
 //          --keep-db (leave the database for inspection)
 //          --profile (instead of the mix, each kind of request alone from 4 connections, with the CPU the server
@@ -41,7 +42,7 @@ const TARGET_P99 = { read: 100, write: 250 };
 const WRITE_KINDS = new Set(['add pin', 'reply', 'save setup']);
 
 function parseArgs(argv) {
-  const opts = { connections: 200, duration: 60, maxRequests: 600_000, warmup: 5, build: true, write: true, keepDb: false, profile: false, thinkMs: 2000 };
+  const opts = { connections: 200, duration: 60, maxRequests: 600_000, warmup: 5, build: true, write: true, keepDb: false, profile: false, thinkMs: 2000, streamsPerPerson: 15 };
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i];
     const number = () => {
@@ -58,6 +59,7 @@ function parseArgs(argv) {
     else if (arg === '--keep-db') opts.keepDb = true;
     else if (arg === '--profile') opts.profile = true;
     else if (arg === '--think-ms') opts.thinkMs = number();
+    else if (arg === '--streams-per-person') opts.streamsPerPerson = number();
     else throw new BootstrapError(`unknown option ${arg}; see the head of scripts/loadtest.mjs`);
   }
   if (opts.connections < 1 || opts.duration < 1) throw new BootstrapError('--connections and --duration must be at least 1');
@@ -320,9 +322,11 @@ async function main() {
     );
     const started = Date.now();
     const result = paced
-      ? await pacedRun({ requests, clients: opts.connections, seconds: opts.duration, thinkMs: opts.thinkMs, maxRequests: opts.maxRequests, timeoutMs: 10_000 })
+      ? await withLiveStreams(world, opts.streamsPerPerson, () =>
+          pacedRun({ requests, clients: opts.connections, seconds: opts.duration, thinkMs: opts.thinkMs, maxRequests: opts.maxRequests, timeoutMs: 10_000 }),
+        )
       : await autocannon({ url: BASE, connections: opts.connections, duration: opts.duration, maxOverallRequests: opts.maxRequests, requests, timeout: 10 });
-    const seconds = (Date.now() - started) / 1000;
+    const seconds = result.seconds ?? (Date.now() - started) / 1000;
     const serverCpu = (readProcCpu(server.pid) - cpuBefore) / seconds;
     const loadAfter = loadAverage();
 
@@ -340,7 +344,12 @@ async function main() {
       `p99 reads ${reads.p99.toFixed(1)} ms — target < ${TARGET_P99.read} ms`,
       `p99 writes ${writes.p99.toFixed(1)} ms — target < ${TARGET_P99.write} ms`,
     ];
-    const pass = reads.errors + writes.errors + connectionErrors === 0 && reads.throttled + writes.throttled === 0 && reads.p99 < TARGET_P99.read && writes.p99 < TARGET_P99.write;
+    if (result.streams) {
+      const st = result.streams;
+      verdict.push(`live streams: ${st.opened} of ${st.wanted} open through the run (map pages receiving pin and save events), ${st.events} events delivered, ${st.failed} refused or dropped — target 0 dropped`);
+    }
+    const streamsFailed = result.streams?.failed ?? 0;
+    const pass = streamsFailed === 0 && reads.errors + writes.errors + connectionErrors === 0 && reads.throttled + writes.throttled === 0 && reads.p99 < TARGET_P99.read && writes.p99 < TARGET_P99.write;
     const clientsText = paced ? `${opts.connections} clients pausing ${opts.thinkMs} ms on average (exponential) before each request` : `${opts.connections} connections, closed loop (no pause)`;
     const summaryLine = `${reads.requests + writes.requests} requests in ${seconds.toFixed(1)} s (${((reads.requests + writes.requests) / seconds).toFixed(0)} per second), ${clientsText}; server process CPU ${(serverCpu * 100).toFixed(0)} % of one core; load average before ${loadBefore}, after ${loadAfter}`;
     console.log(`\n${table(rows)}\n\n${summaryLine}\n${verdict.join('\n')}\n${pass ? 'PASS' : 'FAIL'}: targets ${pass ? 'met' : 'not met'}`);
@@ -456,7 +465,9 @@ async function pacedRun({ requests, clients, seconds, thinkMs, maxRequests, time
   const until = performance.now() + seconds * 1000;
   const agent = new http.Agent({ keepAlive: true, maxSockets: clients });
   const counts = { errors: 0, timeouts: 0, sent: 0 };
-  const pause = () => new Promise((resolve) => setTimeout(resolve, -Math.log(1 - Math.random()) * thinkMs));
+  const began = performance.now();
+  // Never past the end of the run: the run's length is its length.
+  const pause = () => new Promise((resolve) => setTimeout(resolve, Math.min(-Math.log(1 - Math.random()) * thinkMs, Math.max(0, until - performance.now()))));
   const send = (req) =>
     new Promise((resolve) => {
       const body = req.body === undefined ? undefined : Buffer.from(req.body);
@@ -498,7 +509,50 @@ async function pacedRun({ requests, clients, seconds, thinkMs, maxRequests, time
   };
   await Promise.all(Array.from({ length: clients }, client));
   agent.destroy();
-  return counts;
+  return { ...counts, seconds: (performance.now() - began) / 1000 };
+}
+
+/**
+ * Open map pages hold a live stream (server-sent events) while people work: `perPerson` streams for each demo
+ * person (the server allows 20 per account), spread over the maps the clients save to, open for the whole run.
+ * Counts the events they receive; a stream refused or ended early counts as failed.
+ */
+async function withLiveStreams({ sessions, saveMaps }, perPerson, run) {
+  const streams = { wanted: perPerson * sessions.length, opened: 0, events: 0, failed: 0 };
+  const requests = [];
+  let ending = false;
+  for (let i = 0; i < streams.wanted; i++) {
+    const person = sessions[i % sessions.length];
+    const mapId = saveMaps[i % saveMaps.length];
+    await new Promise((resolve) => {
+      const request = http.get(
+        { host: '127.0.0.1', port: PORT, path: `/api/maps/${mapId}/events`, headers: { authorization: `Bearer ${person.token}`, accept: 'text/event-stream' } },
+        (response) => {
+          if (response.statusCode !== 200) {
+            streams.failed++;
+            response.resume();
+            return resolve();
+          }
+          streams.opened++;
+          response.setEncoding('utf8');
+          response.on('data', (text) => (streams.events += (text.match(/^event: map$/gm) ?? []).length));
+          response.on('end', () => ending || streams.failed++);
+          resolve();
+        },
+      );
+      request.on('error', () => {
+        if (!ending) streams.failed++;
+        resolve();
+      });
+      requests.push(request);
+    });
+  }
+  try {
+    return { ...(await run()), streams };
+  } finally {
+    ending = true;
+    for (const request of requests) request.destroy();
+  }
 }
 
 /** User + system CPU seconds of a process so far (Linux /proc). */
