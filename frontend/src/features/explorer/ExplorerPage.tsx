@@ -2,7 +2,7 @@ import { memo, startTransition, useCallback, useEffect, useMemo, useRef, useStat
 import { useSearchParams } from 'react-router-dom';
 import { Button, Drawer, Select, Space, Tooltip, Typography } from 'antd';
 import { CompressOutlined, MenuFoldOutlined, MenuUnfoldOutlined } from '@ant-design/icons';
-import { defaultSetup, teslaToAtomic, validateSetup, type BindingMapResult, type MapSetup, type PhaseMapResult, type Tesla } from '@fieldbound/shared';
+import { canonicalJson, defaultSetup, teslaToAtomic, validateSetup, type BindingMapResult, type MapSetup, type PhaseMapResult, type Tesla } from '@fieldbound/shared';
 import type { MapOverlayContext } from '../map-render/mapOverlay';
 import { palette } from '../../theme/palette';
 import { ENERGY_UNIT_LABEL } from '../map-render/displayUnits';
@@ -129,7 +129,15 @@ export const ExplorerPage = memo(function ExplorerPage({
   // setup and issues, so neither the host page nor the form fields re-render for it.
   const validated = useMemo(() => validateDraft(draft), [draft]);
   const validDraft = validated.valid;
-  useEffect(() => onSetupChange?.(validDraft), [validDraft, onSetupChange]);
+  // Reported when its content changes (not when the page opens with the setup it was given): every report
+  // re-renders the host page.
+  const reportedSetup = useRef<string | null | undefined>(initialSetup ? canonicalJson(initialSetup) : undefined);
+  useEffect(() => {
+    const text = validDraft ? canonicalJson(validDraft) : null;
+    if (text === reportedSetup.current) return;
+    reportedSetup.current = text;
+    onSetupChange?.(validDraft);
+  }, [validDraft, onSetupChange]);
   const { status: baseStatus, result: baseResult, resultSetup: baseResultSetup, resultPass: basePass } = base.state;
   const baseFullMs = base.state.timings.fullMs;
   // Reported again when the moving-ion classes arrive or change (motion settings reuse the binding map).

@@ -101,7 +101,8 @@ function Section({ title }: { title: string }) {
 export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, onCompute, needsCompute, onSave, saveLabel, speciesOptions }: SetupPanelProps) {
   return (
     <>
-      <SetupFields draft={draft} issues={issues} onChange={onChange} speciesOptions={speciesOptions} />
+      <SetupFields draft={draft} issues={issues} onChange={onChange} />
+      {speciesOptions && <SpeciesField draft={draft} issues={issues} onChange={onChange} speciesOptions={speciesOptions} />}
       <Space style={{ marginTop: 16, width: '100%' }} orientation="vertical">
         {/* No click wave: its extra React root and animation land on the main thread just as a computation starts. */}
         <ConfigProvider wave={{ disabled: true }}>
@@ -124,9 +125,9 @@ export const SetupPanel = memo(function SetupPanel({ draft, issues, onChange, on
   );
 });
 
-type SetupFieldsProps = Pick<SetupPanelProps, 'draft' | 'issues' | 'onChange' | 'speciesOptions'>;
+type SetupFieldsProps = Pick<SetupPanelProps, 'draft' | 'issues' | 'onChange'>;
 
-const SetupFields = memo(function SetupFields({ draft, issues, onChange, speciesOptions }: SetupFieldsProps) {
+const SetupFields = memo(function SetupFields({ draft, issues, onChange }: SetupFieldsProps) {
   const set = (path: (string | number)[]) => (value: unknown) => onChange(setIn(draft, path, value));
   const { alphaUnit, fieldUnit, energyUnit } = draft.display;
   const aLabel = ALPHA_UNIT_LABEL[alphaUnit];
@@ -281,23 +282,33 @@ const SetupFields = memo(function SetupFields({ draft, issues, onChange, species
         </div>
       )}
 
-      {speciesOptions && (
-        <>
-          <Section title="Species on the map" />
-          <Form.Item validateStatus={issuesAt(issues, 'species').length ? 'error' : undefined} help={issuesAt(issues, 'species').join('; ') || undefined} style={{ marginBottom: 10 }}>
-            <Select
-              mode="multiple"
-              aria-label="Species on the map"
-              placeholder="Mark atoms at their polarizability…"
-              value={draft.species}
-              onChange={set(['species'])}
-              options={speciesOptions.map((o) => ({ value: o.value, label: o.label }))}
-              optionFilterProp="label"
-              maxTagCount={12}
-            />
-          </Form.Item>
-        </>
-      )}
+    </Form>
+  );
+});
+
+type SpeciesFieldProps = Pick<SetupPanelProps, 'draft' | 'issues' | 'onChange'> & { speciesOptions: NonNullable<SetupPanelProps['speciesOptions']> };
+
+/**
+ * The species of the overlay, in a form of its own after the other fields: the catalogue arrives after the page
+ * opens (and may change), which then re-renders this one field rather than the whole setup form.
+ */
+const SpeciesField = memo(function SpeciesField({ draft, issues, onChange, speciesOptions }: SpeciesFieldProps) {
+  const options = useMemo(() => speciesOptions.map((o) => ({ value: o.value, label: o.label })), [speciesOptions]);
+  return (
+    <Form layout="vertical" size="small" requiredMark={false} aria-label="Species of the map">
+      <Section title="Species on the map" />
+      <Form.Item validateStatus={issuesAt(issues, 'species').length ? 'error' : undefined} help={issuesAt(issues, 'species').join('; ') || undefined} style={{ marginBottom: 10 }}>
+        <Select
+          mode="multiple"
+          aria-label="Species on the map"
+          placeholder="Mark atoms at their polarizability…"
+          value={draft.species}
+          onChange={(value: string[]) => onChange(setIn(draft, ['species'], value))}
+          options={options}
+          optionFilterProp="label"
+          maxTagCount={12}
+        />
+      </Form.Item>
     </Form>
   );
 });

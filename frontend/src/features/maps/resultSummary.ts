@@ -7,6 +7,14 @@ import { regionField, regionName } from '../map-render/regionField';
  */
 export function resultCounts(binding: BindingMapResult, phase: PhaseMapResult | null = null): ResultCounts {
   const counts: ResultCounts = { bound: 0, resonance: 0, unbound: 0 };
+  if (!phase) {
+    // The same classes as `regionField` without ion motion (a level: bound, none: unbound), in one pass and
+    // without a field per orbital: a finished map is summed on the page's main thread.
+    const pairs = (binding.mMax + 1) * binding.cellCount;
+    for (let k = 0; k < pairs; k++) if (binding.counts[k] > 0) counts.bound++;
+    counts.unbound = pairs - counts.bound;
+    return counts;
+  }
   for (let m = 0; m <= binding.mMax; m++) {
     const field = regionField(binding, phase, { kind: 'orbital', m });
     for (let c = 0; c < field.length; c++) counts[regionName(field[c])]++;
