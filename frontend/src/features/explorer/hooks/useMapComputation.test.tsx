@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { renderHook, waitFor } from '@testing-library/react';
+import { act, renderHook, waitFor } from '@testing-library/react';
 import { defaultSetup, type MapSetup } from '@fieldbound/shared';
 import { EnginePool } from '../../../workers/enginePool';
 import { FakeEngineWorker, fakeEngineApi } from '../../../workers/fakeWorkers';
@@ -59,5 +59,29 @@ describe('useMapComputation', () => {
     // A binding input (the cutoff): a new model and new rows.
     rerender({ setup: { ...base, shortRange: { ...base.shortRange, cutoffBohr: 3 } } });
     await waitFor(() => expect(calls.prepareMap).toBe(2));
+  });
+});
+
+describe('useMapComputation status', () => {
+  it('is computing from the render that asks for a new map, cancels to a "cancelled" error, and computes again after Retry', { timeout: 30_000 }, async () => {
+    let hang = true;
+    const api = fakeEngineApi();
+    pool = new EnginePool({
+      size: 1,
+      createWorker: () =>
+        new FakeEngineWorker({ ...api, prepareMap: (...args: Parameters<typeof api.prepareMap>) => (hang ? new Promise<never>(() => {}) : api.prepareMap(...args)) }) as unknown as Worker,
+    });
+    const caches = createMapCaches();
+    const { result } = renderHook(() => useMapComputation(pool, base, caches, { timeoutMs: 5000 }));
+    expect(result.current.state.status).toBe('computing');
+    act(() => result.current.cancel());
+    expect(result.current.state.status).toBe('error');
+    expect(result.current.state.error?.kind).toBe('cancelled');
+    hang = false;
+    pool.restart();
+    act(() => result.current.retry());
+    expect(result.current.state.status).toBe('computing');
+    await waitFor(() => expect(result.current.state.status).toBe('done'));
+    expect(result.current.state.result?.nField).toBe(8);
   });
 });

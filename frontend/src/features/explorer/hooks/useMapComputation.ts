@@ -1,4 +1,4 @@
-import { startTransition, useCallback, useEffect, useRef, useState, useSyncExternalStore } from 'react';
+import { startTransition, useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { bindingInputsKey, canonicalJson, type BindingMapResult, type MapSetup, type PhaseMapResult } from '@fieldbound/shared';
 import type { EnginePool } from '../../../workers/enginePool';
 import { MapComputeError } from '../../../workers/engineContract';
@@ -115,6 +115,14 @@ const IDLE: MapComputation = {
   timings: { firstPictureMs: null, fullMs: null },
 };
 
+/** The state as stored: with the binding key and attempt it belongs to (see `useMapComputation`). */
+interface StoredComputation extends MapComputation {
+  forKey: string | null;
+  forAttempt: number;
+}
+const IDLE_STORED: StoredComputation = { ...IDLE, forKey: null, forAttempt: -1 };
+const NO_TIMINGS: MapComputation['timings'] = { firstPictureMs: null, fullMs: null };
+
 export interface UseMapComputationOptions {
   timeoutMs: number;
   /** Names the User Timing marks of this computation (`fieldbound:<label>:start`, `…:coarse-result`, `…:full-result`). */
@@ -136,7 +144,7 @@ function mark(label: string | undefined, what: string) {
  * `cancel` stops; `retry` starts again after an error (with fresh workers after a crash).
  */
 export function useMapComputation(pool: EnginePool | null, setup: MapSetup | null, caches: MapCaches, options: UseMapComputationOptions) {
-  const [state, setState] = useState<MapComputation>(IDLE);
+  const [stored, setState] = useState<StoredComputation>(IDLE_STORED);
   const [attempt, setAttempt] = useState(0);
   const [progress] = useState(createProgressStore);
   const controller = useRef<AbortController | null>(null);
@@ -150,14 +158,15 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
   useEffect(() => {
     const current = setupRef.current;
     if (!pool || !current || !key) {
-      setState(IDLE);
+      setState(IDLE_STORED);
       return;
     }
     const startMotion = motionKey(current);
     const cached = caches.binding.get(key);
+    const belongs = { forKey: key, forAttempt: attempt };
     if (cached) {
       const phase = startMotion ? (caches.phase.get(`${key}|${startMotion}`) ?? null) : null;
-      setState({ ...IDLE, status: 'done', result: cached, resultSetup: current, resultPass: 'full', phase, phaseKey: phase ? startMotion : null });
+      setState({ ...IDLE, status: 'done', result: cached, resultSetup: current, resultPass: 'full', phase, phaseKey: phase ? startMotion : null, ...belongs });
       return;
     }
     const abort = new AbortController();
@@ -171,13 +180,14 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
     const coarse = wantsCoarse(current) ? coarseSetup(current, COARSE_SIDE) : null;
 
     progress.set(null);
-    setState((s) => ({ ...s, status: 'computing', error: null, progress: null, timings: { firstPictureMs: null, fullMs: null } }));
+    // No state update here: until a result of this key and attempt is stored, the hook reports 'computing' (a render
+    // of the whole page less, in the task that starts the computation).
     const fail = (e: unknown) => {
       if (abort.signal.aborted) return; // superseded by a newer setup, or stopped by the user (`cancel` set the state)
       abort.abort();
       progress.set(null);
       const error = e instanceof MapComputeError ? e : new MapComputeError('engine', String(e));
-      setState((s) => ({ ...s, status: 'error', progress: null, error }));
+      setState((s) => ({ ...s, status: 'error', progress: null, error, ...belongs }));
     };
 
     const onProgress = (pass: ComputeProgress['pass']) => (p: { done: number; total: number }) => {
@@ -201,7 +211,7 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
         mark(label, 'full-result');
         setState({
           status: 'done', result: r.binding, resultSetup: current, resultPass: 'full', phase: r.phase, phaseKey: r.phase ? startMotion : null,
-          progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs },
+          progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs }, ...belongs,
         });
       }, fail);
 
@@ -215,7 +225,7 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
           mark(label, 'coarse-result');
           // A plain update, not a transition: a transition waits behind (and restarts after) each progress update,
           // and rendering a result is cheap (the host page and the form are memoised; contours are the worker's).
-          setState((s) => ({ ...s, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null } }));
+          setState((s) => ({ ...s, status: 'computing', error: null, progress: null, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null }, ...belongs }));
         }, fail)
         .then(() => {
           if (!abort.signal.aborted) void fullPass();
@@ -229,6 +239,9 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
 
   // Moving-ion classes for motion settings other than those the result was classified for: the engine's
   // phaseMap on the binding energies already computed (split by rows over the pool), nothing else.
+  // The state of this key and attempt, or — until its first result is stored — the last one's picture, computing.
+  const fresh = !key || (stored.forKey === key && stored.forAttempt === attempt);
+  const state = useMemo<MapComputation>(() => (fresh ? stored : { ...stored, status: 'computing', error: null, progress: null, timings: NO_TIMINGS }), [stored, fresh]);
   const { result, resultSetup, phaseKey, resultPass } = state;
   useEffect(() => {
     if (!pool || !result || !resultSetup || !wantedMotion || phaseKey === wantedMotion) return;
@@ -256,10 +269,16 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
     return () => abort.abort();
   }, [pool, result, resultSetup, resultPass, phaseKey, wantedMotion, key, caches, timeoutMs]);
 
+  const belongsRef = useRef({ forKey: key, forAttempt: attempt });
+  belongsRef.current = { forKey: key, forAttempt: attempt };
   const cancel = useCallback(() => {
     controller.current?.abort();
     progress.set(null);
-    setState((s) => (s.status === 'computing' ? { ...s, status: 'error', progress: null, error: new MapComputeError('cancelled', 'Computation cancelled.') } : s));
+    setState((s) => {
+      const now = belongsRef.current;
+      const computing = now.forKey !== null && (s.forKey !== now.forKey || s.forAttempt !== now.forAttempt || s.status === 'computing');
+      return computing ? { ...s, status: 'error', progress: null, error: new MapComputeError('cancelled', 'Computation cancelled.'), ...now } : s;
+    });
   }, [progress]);
   const retry = useCallback(() => {
     // After a crash start from fresh workers; otherwise just run again.
