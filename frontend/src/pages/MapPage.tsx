@@ -1,9 +1,9 @@
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { App, Button, Space, Spin, Tooltip, Typography } from 'antd';
 import { ArrowLeftOutlined, DesktopOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import { bindingInputsKey, canonicalJson, setupFingerprint, type MapDetail, type MapSetup, type SpeciesEntry } from '@fieldbound/shared';
+import { bindingInputsKey, canonicalJson, setupFingerprint, type BindingMapResult, type MapDetail, type MapSetup, type PhaseMapResult, type SpeciesEntry } from '@fieldbound/shared';
 import { conflictOf, storeMap, useMap, usePutSummary, usePutThumbnail, useRestoreVersion, useSaveAsCopy, useUpdateMap, type UpdateMapVars } from '../api/maps';
 import { useTeamSpecies } from '../api/species';
 import { useCurrentTeam } from '../state/currentTeam';
@@ -44,6 +44,12 @@ export function speciesMarkers(entries: readonly SpeciesEntry[]): SpeciesMarker[
 function sameContent(a: MapSetup, b: MapSetup): boolean {
   const strip = (s: MapSetup) => canonicalJson({ ...s, display: { ...s.display, shown: null } });
   return strip(a) === strip(b);
+}
+
+/** Runs `work` when the main thread is idle (soon after at the latest), or on the next task where there is no idle callback. */
+function whenIdle(work: () => void) {
+  if (typeof window.requestIdleCallback === 'function') window.requestIdleCallback(() => work(), { timeout: 2000 });
+  else setTimeout(work, 0);
 }
 
 type SaveState = 'saved' | 'unsaved' | 'saving' | 'invalid';
@@ -156,9 +162,31 @@ function MapEditor({ map }: { map: MapDetail }) {
     const summaryCurrent = map.summary?.setupFingerprint === fp && map.summary.engineVersion === computed.result.engineVersion;
     if (summaryCurrent && map.thumbnailUrl) return;
     sent.current.add(fp);
-    putSummary.mutate(summaryRequest(computed.setup, computed.result, computed.fullMs));
-    void thumbnailPng(computed.result).then((png) => png && putThumbnail.mutate(png));
+    // In idle slices, one after the other: the counts pass and the picture's pixels stay out of the task that draws the map.
+    const { setup, result, fullMs } = computed;
+    whenIdle(() => {
+      putSummary.mutate(summaryRequest(setup, result, fullMs));
+      whenIdle(() => void thumbnailPng(result).then((png) => png && putThumbnail.mutate(png)));
+    });
   }, [canEdit, computed, map.setup, map.summary, map.thumbnailUrl, update.isPending, putSummary, putThumbnail]);
+
+  // Stable handlers for the memoised header parts (pins, species and live status arriving re-render the page, not them).
+  const onRename = useCallback((title: string) => {
+    const t = title.trim();
+    if (t && t !== mapTitleRef.current) saveRef.current({ title: t });
+  }, []);
+  const mapTitleRef = useRef(map.title);
+  mapTitleRef.current = map.title;
+  const currentRef = useRef(current);
+  currentRef.current = current;
+  const onSaveCurrent = useCallback(() => {
+    const setup = currentRef.current;
+    if (setup) saveRef.current({ setup });
+  }, []);
+  const onPresent = useCallback(() => navigate(`/maps/${map.id}/present`), [navigate, map.id]);
+  const onVersions = useCallback(() => setVersionsOpen(true), []);
+  const onShare = useCallback(() => setShareOpen(true), []);
+  const getFigureSvg = useCallback(() => explorerBox.current?.querySelector<SVGSVGElement>('.map-view svg[role="img"]') ?? null, []);
 
   const onRestoreVersion = (n: number) =>
     restoreVersion.mutate(
@@ -205,63 +233,28 @@ function MapEditor({ map }: { map: MapDetail }) {
         aria-label="Map"
         style={{ height: BAR_HEIGHT, display: 'flex', alignItems: 'center', gap: 12, padding: '0 12px', background: '#fff', borderBottom: `1px solid ${palette.unbound}` }}
       >
-        <Tooltip title="All maps">
-          <Link to="/maps" aria-label="All maps">
-            <ArrowLeftOutlined />
-          </Link>
-        </Tooltip>
-        <Typography.Title
-          level={5}
-          style={{ margin: 0, minWidth: 0, maxWidth: 480 }}
-          ellipsis={{ tooltip: map.title }}
-          editable={
-            canEdit
-              ? {
-                  triggerType: ['icon', 'text'],
-                  tooltip: 'Rename',
-                  maxLength: 200,
-                  onChange: (title) => {
-                    const t = title.trim();
-                    if (t && t !== map.title) save({ title: t });
-                  },
-                }
-              : false
-          }
-        >
-          {map.title}
-        </Typography.Title>
+        <MapTitle title={map.title} canEdit={canEdit} onRename={onRename} />
         <Typography.Text type="secondary" role="status" aria-live="polite" style={{ fontSize: 12.5, whiteSpace: 'nowrap' }} data-testid="save-state">
           {canEdit ? SAVE_STATE_TEXT[saveState] : 'Read only: you are a viewer of this team'} · version {map.version}
         </Typography.Text>
         <div style={{ flex: 1 }} />
-        <Space size={6}>
+        <div style={{ display: 'flex', alignItems: 'center', gap: 6 }}>
           {pins.headerButton}
-          <Tooltip title="Full-screen lecture view of this map">
-            <Button size="small" icon={<DesktopOutlined />} onClick={() => navigate(`/maps/${map.id}/present`)}>
-              Present
-            </Button>
-          </Tooltip>
-          <Button size="small" icon={<HistoryOutlined />} onClick={() => setVersionsOpen(true)}>
-            Versions
-          </Button>
-          {canEdit && (
-            <Button size="small" icon={<ShareAltOutlined />} onClick={() => setShareOpen(true)}>
-              Share
-            </Button>
-          )}
-          <ExportMenu
-            setup={exportSetup}
+          <MapActions
+            canEdit={canEdit}
+            exportSetup={exportSetup}
             bindingMap={computed?.result ?? null}
             phaseMap={computed?.phase && computed.phaseMotionKey === motionKey(exportSetup) ? computed.phase : null}
             title={map.title}
-            getFigureSvg={() => explorerBox.current?.querySelector<SVGSVGElement>('.map-view svg[role="img"]') ?? null}
+            saveDisabled={!dirty || current === null || saveState === 'saving'}
+            saving={saveState === 'saving'}
+            onPresent={onPresent}
+            onVersions={onVersions}
+            onShare={onShare}
+            onSave={onSaveCurrent}
+            getFigureSvg={getFigureSvg}
           />
-          {canEdit && (
-            <Button size="small" type="primary" icon={<SaveOutlined />} disabled={!dirty || current === null || saveState === 'saving'} loading={saveState === 'saving'} onClick={() => current && save({ setup: current })}>
-              Save
-            </Button>
-          )}
-        </Space>
+        </div>
       </header>
       <div ref={explorerBox}>
         <ExplorerPage
@@ -298,3 +291,66 @@ function MapEditor({ map }: { map: MapDetail }) {
     </div>
   );
 }
+
+/** The way back to the maps and the map's title, renamed in place by editors. Memoised: its ellipsis measures the layout on every render. */
+const MapTitle = memo(function MapTitle({ title, canEdit, onRename }: { title: string; canEdit: boolean; onRename: (title: string) => void }) {
+  return (
+    <>
+      <Tooltip title="All maps">
+        <Link to="/maps" aria-label="All maps">
+          <ArrowLeftOutlined />
+        </Link>
+      </Tooltip>
+      <Typography.Title
+      level={5}
+      style={{ margin: 0, minWidth: 0, maxWidth: 480 }}
+      ellipsis={{ tooltip: title }}
+      editable={canEdit ? { triggerType: ['icon', 'text'], tooltip: 'Rename', maxLength: 200, onChange: onRename } : false}
+    >
+      {title}
+    </Typography.Title>
+    </>
+  );
+});
+
+interface MapActionsProps {
+  canEdit: boolean;
+  exportSetup: MapSetup;
+  bindingMap: BindingMapResult | null;
+  phaseMap: PhaseMapResult | null;
+  title: string;
+  saveDisabled: boolean;
+  saving: boolean;
+  onPresent: () => void;
+  onVersions: () => void;
+  onShare: () => void;
+  onSave: () => void;
+  getFigureSvg: () => SVGSVGElement | null;
+}
+
+/** Present, Versions, Share, Export and Save. Memoised: data arriving for the map (pins, species, live status) does not re-render them. */
+const MapActions = memo(function MapActions({ canEdit, exportSetup, bindingMap, phaseMap, title, saveDisabled, saving, onPresent, onVersions, onShare, onSave, getFigureSvg }: MapActionsProps) {
+  return (
+    <Space size={6}>
+      <Tooltip title="Full-screen lecture view of this map">
+        <Button size="small" icon={<DesktopOutlined />} onClick={onPresent}>
+          Present
+        </Button>
+      </Tooltip>
+      <Button size="small" icon={<HistoryOutlined />} onClick={onVersions}>
+        Versions
+      </Button>
+      {canEdit && (
+        <Button size="small" icon={<ShareAltOutlined />} onClick={onShare}>
+          Share
+        </Button>
+      )}
+      <ExportMenu setup={exportSetup} bindingMap={bindingMap} phaseMap={phaseMap} title={title} getFigureSvg={getFigureSvg} />
+      {canEdit && (
+        <Button size="small" type="primary" icon={<SaveOutlined />} disabled={saveDisabled} loading={saving} onClick={onSave}>
+          Save
+        </Button>
+      )}
+    </Space>
+  );
+});
