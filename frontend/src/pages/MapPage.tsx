@@ -1,4 +1,4 @@
-import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { App, Button, Space, Spin, Tooltip, Typography } from 'antd';
 import { ArrowLeftOutlined, DesktopOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
 import { Link, useNavigate, useParams } from 'react-router-dom';
@@ -112,6 +112,10 @@ function MapEditor({ map }: { map: MapDetail }) {
   const [shareOpen, setShareOpen] = useState(false);
   const explorerBox = useRef<HTMLDivElement>(null);
   const pins = useMemberPins({ mapId: map.id, mapVersion: map.version, canEdit });
+  // Species and pins reach the explorer as deferred values: their arrival re-renders the page's header at once and the
+  // explorer (setup form, map, overlay) in an interruptible background render, not in one long task.
+  const explorerSpecies = useDeferredValue(markers);
+  const explorerOverlay = useDeferredValue(pins.overlay);
 
   const dirty = canEdit && (current === null || !sameContent(current, map.setup));
   const saveState: SaveState = update.isPending || restoreVersion.isPending ? 'saving' : !dirty ? 'saved' : current === null ? 'invalid' : 'unsaved';
@@ -262,10 +266,10 @@ function MapEditor({ map }: { map: MapDetail }) {
           initialSetup={openedWith}
           onSaveSetup={canEdit ? onSaveSetup : undefined}
           saveLabel="Save map"
-          speciesCatalogue={markers}
+          speciesCatalogue={explorerSpecies}
           onSetupChange={setCurrent}
           onComputed={setComputed}
-          overlay={pins.overlay}
+          overlay={explorerOverlay}
           style={explorerStyle}
         />
       </div>

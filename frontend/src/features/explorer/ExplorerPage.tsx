@@ -111,7 +111,8 @@ export const ExplorerPage = memo(function ExplorerPage({
       probe: new EnginePool({ createWorker: makeEngineWorker, size: 1 }),
       contours: new ContourClient(makeContourWorker),
     };
-    setWorkers(w);
+    // As a transition: the page's render with the workers (which starts the computation) is interruptible.
+    startTransition(() => setWorkers(w));
     return () => {
       w.maps.dispose();
       w.probe.dispose();

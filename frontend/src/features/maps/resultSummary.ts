@@ -42,15 +42,25 @@ const TEAL = [0x1f, 0x6f, 0x78];
  * to deep teal (the survivors colours of the design), field upwards, nearest cell per pixel.
  */
 export function thumbnailPixels(binding: BindingMapResult, width: number = THUMBNAIL_SIZE.width, height: number = THUMBNAIL_SIZE.height): Uint8ClampedArray {
-  const field = regionField(binding, null, { kind: 'survivors' });
+  // Bound states summed over the orbitals (the survivors field without ion motion), read only at the sampled cells;
+  // the largest sum over every cell sets the ramp. No field of the whole map is built on the page's main thread.
+  const { cellCount, mMax, counts, nAlpha, nField } = binding;
+  const survivorsAt = (c: number) => {
+    let n = 0;
+    for (let m = 0; m <= mMax; m++) n += counts[m * cellCount + c];
+    return n;
+  };
   let max = 0;
-  for (const v of field) max = Math.max(max, v);
+  for (let c = 0; c < cellCount; c++) {
+    const n = survivorsAt(c);
+    if (n > max) max = n;
+  }
   const out = new Uint8ClampedArray(width * height * 4);
   for (let y = 0; y < height; y++) {
-    const j = Math.min(binding.nField - 1, Math.floor(((height - 1 - y) / height) * binding.nField));
+    const j = Math.min(nField - 1, Math.floor(((height - 1 - y) / height) * nField));
     for (let x = 0; x < width; x++) {
-      const i = Math.min(binding.nAlpha - 1, Math.floor((x / width) * binding.nAlpha));
-      const t = max > 0 ? field[j * binding.nAlpha + i] / max : 0;
+      const i = Math.min(nAlpha - 1, Math.floor((x / width) * nAlpha));
+      const t = max > 0 ? survivorsAt(j * nAlpha + i) / max : 0;
       const o = (y * width + x) * 4;
       for (let k = 0; k < 3; k++) out[o + k] = Math.round(PAPER[k] + (TEAL[k] - PAPER[k]) * t);
       out[o + 3] = 255;
