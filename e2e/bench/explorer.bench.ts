@@ -28,6 +28,8 @@ interface Marks {
   computingTasks: { start: number; duration: number }[];
   /** The long task in which the page posts the start mark (0 if that task was short). */
   markTaskMs: number;
+  /** Page time of the start mark (from navigation). */
+  startAt: number;
 }
 
 interface PanFigures {
@@ -156,6 +158,7 @@ async function computationFigures(page: Page, nth: number, since: number): Promi
         fullMs: full - start,
         longTasks: between(Math.min(from, start)),
         computingTasks: w.__bench.longTasks.filter((t) => t.start >= start && t.start <= full).map((t) => ({ start: t.start - start, duration: t.duration })),
+        startAt: start,
         markTaskMs: w.__bench.longTasks.find((t) => t.start < start && t.start + t.duration >= start)?.duration ?? 0,
       };
     },
@@ -235,7 +238,7 @@ async function main() {
     // Cold: first visit, workers and the engine bundle loaded from scratch.
     await page.goto(`${BASE}/maps/${mapId}`);
     runs.push(await computationFigures(page, 1, 0));
-    log(`cold: first picture ${fmtMs(runs[0].coarseMs)}, full map ${fmtMs(runs[0].fullMs)}, long tasks ${runs[0].longTasks.length} from navigation, ${runs[0].computingTasks.length} from the computation's start`);
+    log(`cold: start mark at ${fmtMs(runs[0].startAt)} from navigation, first picture ${fmtMs(runs[0].coarseMs)}, full map ${fmtMs(runs[0].fullMs)}, long tasks ${runs[0].longTasks.length} from navigation, ${runs[0].computingTasks.length} from the computation's start`);
     // Warm: recompute after a change of the cutoff (a binding input), workers already running.
     for (let r = 0; r < RUNS; r++) {
       const clickAt = await recompute(page, String(2 + 0.001 * (r + 1)));
@@ -271,7 +274,7 @@ async function main() {
     '|---|---|---|---|',
     `| first picture (coarse 64², drawn), warm workers, median of ${warm.length} | ≤ 300 ms | ${fmtMs(warmCoarse)} (best ${fmtMs(best(warm.map((r) => r.coarseMs)))}) | ${verdict(warmCoarse <= 300)} |`,
     `| full map 256² drawn, warm workers, median of ${warm.length} | ≤ 2000 ms | ${fmtMs(warmFull)} (best ${fmtMs(best(warm.map((r) => r.fullMs)))}) | ${verdict(warmFull <= 2000)} |`,
-    `| first visit (cold workers and bundle): first picture / full map | — | ${fmtMs(runs[0].coarseMs)} / ${fmtMs(runs[0].fullMs)} | |`,
+    `| first visit (cold workers and bundle): first picture / full map, from the start mark (from navigation) | — | ${fmtMs(runs[0].coarseMs)} / ${fmtMs(runs[0].fullMs)} (${fmtMs(runs[0].coarseMs === null ? null : runs[0].startAt + runs[0].coarseMs)} / ${fmtMs(runs[0].startAt + runs[0].fullMs)}) | |`,
     `| main-thread long tasks > 50 ms while computing: from pressing Compute to the full map, warm, ${warm.length} computations | none | ${taskCount(warm)} (longest ${Math.round(worstTask(warm))} ms) | ${verdict(taskCount(warm) === 0)} |`,
     `| main-thread long tasks > 50 ms on the first visit: from the computation's start (mark \`fieldbound:map:start\`) to the full map | none | ${computingCount} (longest ${Math.round(computingWorst)} ms; the task that posts the mark, not counted: ${Math.round(runs[0].markTaskMs)} ms) | ${verdict(computingCount === 0)} |`,
     `| main-thread long tasks > 50 ms on the first visit: from navigation (page start-up included) to the full map | none | ${taskCount(runs.slice(0, 1))} (longest ${Math.round(worstTask(runs.slice(0, 1)))} ms) | ${verdict(taskCount(runs.slice(0, 1)) === 0)} |`,
