@@ -2,7 +2,7 @@ import '@fontsource/ibm-plex-sans/400.css';
 import '@fontsource/ibm-plex-sans/500.css';
 import '@fontsource/ibm-plex-sans/600.css';
 import './theme/global.css';
-import { StrictMode } from 'react';
+import { StrictMode, startTransition } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider, createBrowserRouter } from 'react-router-dom';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
@@ -19,16 +19,21 @@ const queryClient = new QueryClient({
 // themselves stay declared as <Routes> in App.
 const router = createBrowserRouter([{ path: '*', element: <App /> }]);
 
-createRoot(document.getElementById('root')!).render(
-  <StrictMode>
-    <ConfigProvider theme={lightTheme}>
-      <AntdApp>
-        <QueryClientProvider client={queryClient}>
-          <CurrentTeamProvider>
-            <RouterProvider router={router} />
-          </CurrentTeamProvider>
-        </QueryClientProvider>
-      </AntdApp>
-    </ConfigProvider>
-  </StrictMode>,
-);
+// The first render as a transition: React renders the shell in slices and yields between them, so opening the app
+// is not one long main-thread task.
+const root = createRoot(document.getElementById('root')!);
+startTransition(() => {
+  root.render(
+    <StrictMode>
+      <ConfigProvider theme={lightTheme}>
+        <AntdApp>
+          <QueryClientProvider client={queryClient}>
+            <CurrentTeamProvider>
+              <RouterProvider router={router} />
+            </CurrentTeamProvider>
+          </QueryClientProvider>
+        </AntdApp>
+      </ConfigProvider>
+    </StrictMode>,
+  );
+});

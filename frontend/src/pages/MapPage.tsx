@@ -59,7 +59,10 @@ const SAVE_STATE_TEXT: Record<SaveState, string> = { saved: 'Saved', unsaved: 'U
 export function MapPage() {
   const { mapId } = useParams();
   const map = useMap(mapId);
-  if (map.isLoading) {
+  // When the map arrives, the editor and explorer mount in an interruptible background render (a deferred value)
+  // instead of one long task; the spinner stays meanwhile. Later updates of the map (saves) render at once.
+  const arrived = useDeferredValue(map.data !== undefined);
+  if (map.isLoading || (map.data && !arrived)) {
     return (
       <div style={{ margin: 'auto', padding: 48 }}>
         <Spin tip="Opening the map…" size="large">
