@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
-import { bandTopY, guideShot, mapOverlay, NEW_ACCOUNT_PASSWORD, probeRow, signIn, speciesX, unique, VIEWPORT, waitForComputedMap } from './support/journey';
+import { bandTopY, guideShot, mapOverlay, NEW_ACCOUNT_PASSWORD, probeMagnesiumAt20T, signIn, speciesX, unique, VIEWPORT, waitForComputedMap } from './support/journey';
 
 // The theorist's journey: sign in, create a map from the laboratory preset, let it compute, mark candidate species
 // and the group's 20 T magnet, probe magnesium at 20 T (a bound region of orbital m = 0), save, and export the
@@ -56,15 +56,7 @@ test('a theorist computes a laboratory map, finds magnesium bound at 20 T with t
   const y = await bandTopY(page, 'Our 20 T magnet');
   await mapOverlay(page).hover({ position: { x, y } });
   await expect(page.locator('.map-readout')).toContainText(/m = 0: ε = [\d.]+ µeV/);
-  await mapOverlay(page).click({ position: { x, y } });
-  const { cells, headers } = await probeRow(page, 0, 0);
-  const energyColumn = headers.findIndex((h) => h.startsWith('Binding energy'));
-  expect(headers[energyColumn]).toContain('µeV');
-  // Engine figure at α = 71.2 a₀³ (Mg), 20 T, r_c = 2 a₀: 70.8 µeV (backend/src/demo/demo-answer.spec.ts); a click lands
-  // within a pixel of the point, so allow a few per cent.
-  const microEv = Number(cells[energyColumn].replace(/[^\d.]/g, ''));
-  expect(microEv).toBeGreaterThan(60);
-  expect(microEv).toBeLessThan(85);
+  await probeMagnesiumAt20T(page, x, y);
   await guideShot(page, 'probe');
 
   // Close the probe, then save: species and the band are part of the setup.

@@ -1,18 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { allocateCellMotionOutput, classifyCells, classifyCellsPerState, type CellBindings } from './classifyCells.js';
 import { validateMotionSettings, type MotionSettingsInput } from './motionSettings.js';
+import { mulberry32 } from '../../test/seededRandom.js';
 
-/** Deterministic pseudo-random numbers in [0, 1) (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+const rng = mulberry32;
 
 /**
  * A random map with the awkward cases the fused loop must hand to the per-state path or get right itself:
