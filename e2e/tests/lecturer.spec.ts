@@ -32,6 +32,8 @@ test('a lecturer creates a viewing link with pins, opens it signed out and prese
   await waitForComputedMap(screen);
   await expect(screen.getByRole('button', { name: /Save/ })).toHaveCount(0);
   await expect(screen.getByRole('complementary', { name: 'Setup' })).toHaveCount(0);
+  // The shortlist's species markers come with the link (a visitor cannot read the team's species).
+  await expect(screen.locator('.map-view g.species-marker text').filter({ hasText: /^Mg$/ })).toBeVisible();
   // The caution travels with the map.
   await expect(screen.getByText(/Model estimate/)).toBeVisible();
   await guideShot(screen, 'shared-view');
@@ -42,6 +44,7 @@ test('a lecturer creates a viewing link with pins, opens it signed out and prese
   await expect(lecture).toBeVisible();
   await expect(lecture.getByRole('heading', { name: DEMO.maps.lab, level: 1 })).toBeVisible();
   await expect(lecture.getByText(/Model estimates/)).toBeVisible();
+  await expect(lecture.locator('.map-view g.species-marker text').filter({ hasText: /^Cd$/ })).toBeVisible();
   await expect(lecture.getByText(/computed in [\d.]+ s/)).toBeVisible({ timeout: 240_000 });
   await expect(lecture.getByTestId('lecture-overview')).toContainText(/\d+ pins/);
   await screen.keyboard.press('ArrowRight');

@@ -11,6 +11,9 @@ import { PinReply } from '../pins/pin-reply.entity';
 import { Pin } from '../pins/pin.entity';
 import { PinReads } from '../pins/pin.reads';
 import { toPinView, toReplyView } from '../pins/pin.views';
+import { SpeciesReads } from '../species/species.reads';
+import { SpeciesService } from '../species/species.service';
+import { Clock } from './clock';
 
 // The plain-SQL reads (common/sql-reads.ts) must answer exactly what the ORM-built views answer for the same rows:
 // every field, the same order, the same JSON text. The data covers every joined branch: summaries (current and
@@ -120,6 +123,27 @@ describe('plain-SQL reads equal the ORM views', () => {
       }
     }
     expect((await new PinReads(fresh()).listForMap(mapIds[0], 'resolved')).length).toBe(1);
+  });
+
+  it('species: the catalogue atoms and team species that names pick out, as the ORM-built team species filtered by the overlay rule', async () => {
+    const csv = (rows: string[]) => new Blob([['name,polarizability,uncertainty,unit,mass_number,electron_affinity_ev,source', ...rows].join('\n')], { type: 'text/csv' });
+    const upload = async (teamId: string, as: RoleCast['owner'], name: string, rows: string[]) => {
+      const form = new FormData();
+      form.append('name', name);
+      form.append('file', csv(rows), 'species.csv');
+      expect((await call('POST', `/teams/${teamId}/species-lists`, { as, form })).status).toBe(201);
+    };
+    // Two lists (uploaded out of name order) share a name; another team has the same name and one of its own.
+    await upload(cast.teamId, cast.editor, 'Zeta list', ['Shared name,12.5,0.5,A^3,40,0.3,Zeta source', 'Zeta only,7,,a0^3,20,,Zeta']);
+    await upload(cast.teamId, cast.editor, 'Alpha list', ['Shared name,30,,1e-24cm^3,41,,Alpha source', 'Cs,1,,a0^3,1,,a team row named like a symbol']);
+    await upload(cast.otherTeamId, cast.outsider, 'Other', ['Shared name,99,,a0^3,1,,other team', 'Only theirs,5,,a0^3,1,,other team']);
+    const names = ['Cs', 'Helium', 'Shared name', 'Only theirs', 'nobody', 'cs'];
+    const orm = await new SpeciesService(fresh(), t.app.get(Clock)).forTeam(cast.teamId);
+    const expected = orm.items.filter((e) => names.includes(e.name) || (e.symbol !== null && names.includes(e.symbol)));
+    const got = await new SpeciesReads(fresh()).namedForTeam(cast.teamId, names);
+    expect(JSON.stringify(got)).toBe(JSON.stringify(expected));
+    expect(got.map((e) => `${e.list?.name ?? 'catalogue'}:${e.name}`)).toEqual(['catalogue:Helium', 'catalogue:Caesium', 'Alpha list:Shared name', 'Alpha list:Cs', 'Zeta list:Shared name']);
+    expect(await new SpeciesReads(fresh()).namedForTeam(cast.teamId, [])).toEqual([]);
   });
 
   it('keeps a map, pin and reply readable after their author leaves (people shown as null)', async () => {

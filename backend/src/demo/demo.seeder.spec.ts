@@ -3,7 +3,7 @@ import { loadConfig } from '../config/configuration';
 import { seedDemoData } from '../database/seed';
 import { startTestApp, type TestApp } from '../../test/test-app';
 import { DEMO_LECTURE_TOKEN, DEMO_PEOPLE, DEMO_TEAM_NAME } from './demo-people';
-import { DEMO_MAPS } from './demo-maps';
+import { DEMO_MAPS, LAB_SHORTLIST } from './demo-maps';
 import { DEMO_PINS } from './demo-threads';
 
 async function json<T>(res: Response): Promise<T> {
@@ -49,11 +49,12 @@ describe('demo seed', () => {
     expect(maps.items.map((m) => m.title).sort()).toEqual(DEMO_MAPS.map((m) => m.title).sort());
   });
 
-  it('serves the lecture link without an account, with the laboratory map and its pins', async () => {
+  it('serves the lecture link without an account, with the laboratory map, its shortlist species and its pins', async () => {
     const res = await fetch(`${server.baseUrl}/view/${DEMO_LECTURE_TOKEN}`);
     expect(res.status).toBe(200);
-    const view = await json<{ title: string; pins?: { title: string }[] }>(res);
+    const view = await json<{ title: string; species: { symbol: string | null; origin: string }[]; pins?: { title: string }[] }>(res);
     expect(view.title).toBe(DEMO_MAPS.find((m) => m.key === 'lab')!.title);
+    expect(view.species.map((s) => `${s.origin}:${s.symbol}`).sort()).toEqual(LAB_SHORTLIST.map((symbol) => `catalogue:${symbol}`).sort());
     expect(view.pins?.map((p) => p.title).sort()).toEqual(DEMO_PINS.filter((p) => p.map === 'lab').map((p) => p.title).sort());
   });
 

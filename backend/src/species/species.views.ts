@@ -1,4 +1,4 @@
-import type { SpeciesEntry, SpeciesListView } from '@fieldbound/shared';
+import type { SharedSpecies, SpeciesEntry, SpeciesListView } from '@fieldbound/shared';
 import type { CatalogueSpecies } from './catalogue-species.entity';
 import type { SpeciesList } from './species-list.entity';
 import type { TeamSpecies } from './team-species.entity';
@@ -25,7 +25,8 @@ export function catalogueEntry(s: CatalogueSpecies): SpeciesEntry {
   };
 }
 
-export function teamEntry(s: TeamSpecies, list: SpeciesList): SpeciesEntry {
+/** Built from an entity or from a plain-SQL row with the same fields (species.reads.ts). */
+export function teamEntry(s: Omit<TeamSpecies, 'list'>, list: Pick<SpeciesList, 'id' | 'name'>): SpeciesEntry {
   return {
     id: s.id,
     origin: 'team',
@@ -44,6 +45,12 @@ export function teamEntry(s: TeamSpecies, list: SpeciesList): SpeciesEntry {
     massNumber: s.massNumber,
     massSource: s.source,
   };
+}
+
+/** What a viewing-link holder sees of an entry: everything but the ids of the team's rows and lists. */
+export function sharedSpecies(entry: SpeciesEntry): SharedSpecies {
+  const { id: _id, list, ...data } = entry;
+  return { ...data, list: list ? { name: list.name } : null };
 }
 
 export function listView(list: SpeciesList, speciesCount: number): SpeciesListView {

@@ -28,6 +28,13 @@ async function newMap(title = 'Potassium for the lecture') {
   return res.body as { id: string };
 }
 
+function speciesCsv(listName: string, rows: string[]): FormData {
+  const form = new FormData();
+  form.append('name', listName);
+  form.append('file', new Blob([['name,polarizability,uncertainty,unit,mass_number,electron_affinity_ev,source', ...rows].join('\n')], { type: 'text/csv' }), 'species.csv');
+  return form;
+}
+
 async function newLink(mapId: string, json: Record<string, unknown> = {}, as: Person = cast.editor) {
   const res = await call('POST', `/maps/${mapId}/viewing-links`, { as, json });
   expect(res.status).toBe(201);
@@ -98,7 +105,7 @@ describe('viewing links: what a holder sees', () => {
     for (let i = 0; i < 3; i++) {
       const view = await call('GET', `/view/${link.token}`);
       expect(view.status).toBe(200);
-      expect(view.body).toEqual({ title: 'Shared map', description: 'Week 3', setup: defaultSetup(), pins: null });
+      expect(view.body).toEqual({ title: 'Shared map', description: 'Week 3', setup: defaultSetup(), species: [], pins: null });
       expect(view.headers.get('cache-control')).toBe('no-store');
     }
     const listed = await call('GET', `/maps/${map.id}/viewing-links`, { as: cast.editor });
@@ -115,6 +122,51 @@ describe('viewing links: what a holder sees', () => {
     expect(view.body.pins).toEqual([{ id: pin.body.id, geometry: { kind: 'point', at: { alpha: 290, fieldTesla: 100 } }, title: 'Look here', body: 'the m = 0 edge', status: 'open', category: null }]);
     expect(JSON.stringify(view.body)).not.toContain('internal remark');
     expect(JSON.stringify(view.body)).not.toContain(cast.editor.id);
+  });
+
+  it("carries the species the overlay names, from the catalogue and the map's team lists only, as the map page matches them", async () => {
+    const ours = await call('POST', `/teams/${cast.teamId}/species-lists`, {
+      as: cast.editor,
+      form: speciesCsv(`Ours ${crypto.randomUUID()}`, ["Cs (our fit),401.2,0.5,a0^3,133,0.4716,Group calculation 2026", "O'Neil? \\x,43.4,,A^3,39,,Quote test source", 'Not named,10,,a0^3,20,,unused']),
+    });
+    expect(ours.status).toBe(201);
+    // Another team's list with a species of the same name and one of its own: neither may reach this map's link.
+    const theirs = await call('POST', `/teams/${cast.otherTeamId}/species-lists`, {
+      as: cast.outsider,
+      form: speciesCsv(`Theirs ${crypto.randomUUID()}`, ['Cs (our fit),999,,a0^3,133,,Other team secret source', 'Their own,50,,a0^3,40,,Other team private value']),
+    });
+    expect(theirs.status).toBe(201);
+
+    const names = ['Mg', 'Barium', 'Cs (our fit)', "O'Neil? \\x", 'Their own', 'Unobtainium', 'mg'];
+    const created = await call('POST', `/teams/${cast.teamId}/maps`, { as: cast.owner, json: { title: 'With species', setup: { ...defaultSetup(), species: names } } });
+    expect(created.status).toBe(201);
+    const link = await newLink(created.body.id);
+    const view = await call('GET', `/view/${link.token}`);
+    expect(view.status).toBe(200);
+
+    const species = view.body.species as { name: string; symbol: string | null; origin: string; list: { name: string } | null; polarizability: { value: number; source: string } }[];
+    // Catalogue by atomic number (Mg by symbol, Ba by name), then the team's rows; exact text only ("mg" matches nothing).
+    expect(species.map((s) => [s.origin, s.symbol ?? s.name])).toEqual([
+      ['catalogue', 'Mg'],
+      ['catalogue', 'Ba'],
+      ['team', 'Cs (our fit)'],
+      ['team', "O'Neil? \\x"],
+    ]);
+    expect(species[0].polarizability.source.length).toBeGreaterThan(0);
+    expect(species[2]).toMatchObject({ list: { name: ours.body.name }, polarizability: { value: 401.2, source: 'Group calculation 2026' }, electronAffinity: { valueEv: 0.4716, source: 'Group calculation 2026' } });
+    // 43.4 Å³ entered, kept with the a₀³ value as on the map page.
+    expect(species[3]).toMatchObject({ polarizability: { entered: { value: 43.4, unit: 'A^3' } }, electronAffinity: { stableAnion: false } });
+    for (const s of species) expect(Object.keys(s)).not.toContain('id');
+
+    // The same entries the signed-in map page gets from the team's species (minus ids), picked by the overlay's rule.
+    const teamSpecies = await call('GET', `/teams/${cast.teamId}/species`, { as: cast.viewer });
+    const picked = (teamSpecies.body.items as { id: string; name: string; symbol: string | null; list: { id: string; name: string } | null }[])
+      .filter((s) => names.includes(s.name) || (s.symbol !== null && names.includes(s.symbol)))
+      .map(({ id: _id, list, ...rest }) => ({ ...rest, list: list ? { name: list.name } : null }));
+    expect(species).toEqual(picked);
+
+    const text = JSON.stringify(view.body);
+    for (const secret of ['Other team', theirs.body.id, theirs.body.name, ours.body.id, 'unused']) expect(text).not.toContain(secret);
   });
 
   it('answers 410 after the expiry, 404 after revocation, and 404 for unknown or malformed tokens', async () => {

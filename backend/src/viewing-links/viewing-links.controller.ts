@@ -40,7 +40,11 @@ export class ViewingLinksController {
   @UseGuards(ViewingLinkThrottlerGuard)
   @Header('Cache-Control', 'no-store')
   @Header('Referrer-Policy', 'no-referrer')
-  @ApiOperation({ summary: 'The map behind a viewing link: title, description, setup and (if allowed) pins. No sign-in; 404 unknown or revoked, 410 expired.' })
+  @ApiOperation({
+    summary: 'The map behind a viewing link: title, description, setup, the species its overlay names and (if allowed) pins. No sign-in; 404 unknown or revoked, 410 expired.',
+    description:
+      '`species` holds the entries `setup.species` names — a catalogue atom by name or symbol, a species of the map\'s team lists by name — with their values and sources, without row or list ids; names that match nothing are absent.',
+  })
   view(@Param('token') token: string): Promise<SharedMapView> {
     return this.links.view(token);
   }

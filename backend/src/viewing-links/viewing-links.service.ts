@@ -8,6 +8,8 @@ import { MapAccessService } from '../maps/map-access.service';
 import { personRef } from '../maps/map.views';
 import { PinReads } from '../pins/pin.reads';
 import { selectRows } from '../common/sql-reads';
+import { SpeciesReads } from '../species/species.reads';
+import { sharedSpecies } from '../species/species.views';
 import { User } from '../users/user.entity';
 import type { CreateViewingLinkDto } from './dto/viewing-link.dto';
 import { ViewingLink } from './viewing-link.entity';
@@ -46,6 +48,7 @@ export class ViewingLinksService {
     private readonly mapAccess: MapAccessService,
     private readonly clock: Clock,
     private readonly pins: PinReads,
+    private readonly species: SpeciesReads,
   ) {}
 
   async list(mapId: string, caller: AuthUser): Promise<ViewingLinkView[]> {
@@ -83,7 +86,8 @@ export class ViewingLinksService {
   }
 
   /**
-   * What a link holder may see: title, description, setup and (if the link allows) pins. Counts the view.
+   * What a link holder may see: title, description, setup, the species its overlay names (from the catalogue and the
+   * map's own team lists only) and (if the link allows) pins. Counts the view.
    * Unknown or revoked → 404; expired → 410.
    */
   async view(token: string): Promise<SharedMapView> {
@@ -92,7 +96,7 @@ export class ViewingLinksService {
     // The busiest public read, in plain SQL (common/sql-reads.ts): find the link with its live map and count the
     // view in one statement — counted in the database, so simultaneous views are all counted; an expired link is
     // found but not counted.
-    const rows = await selectRows<{ map_id: string; include_pins: boolean; expired: boolean; title: string; description: string; setup: MapSetup }>(
+    const rows = await selectRows<{ map_id: string; team_id: string; include_pins: boolean; expired: boolean; title: string; description: string; setup: MapSetup }>(
       this.em,
       `with link as (
          select l.id, l.map_id, l.include_pins, (l.expires_at is not null and l.expires_at <= ?) as expired
@@ -101,15 +105,16 @@ export class ViewingLinksService {
        counted as (
          update viewing_links v set view_count = v.view_count + 1, last_viewed_at = ?
          from link where v.id = link.id and not link.expired returning v.id)
-       select link.map_id, link.include_pins, link.expired, m.title, m.description, m.setup
+       select link.map_id, m.team_id, link.include_pins, link.expired, m.title, m.description, m.setup
        from link join maps m on m.id = link.map_id left join counted on counted.id = link.id`,
       [now, hashViewingToken(token), now],
     );
     const link = rows[0];
     if (!link) throw linkNotFound();
     if (link.expired) throw linkExpired();
+    const species = (await this.species.namedForTeam(link.team_id, link.setup.species)).map(sharedSpecies);
     const pins = link.include_pins ? await this.pins.sharedForMap(link.map_id) : null;
-    return { title: link.title, description: link.description, setup: link.setup, pins };
+    return { title: link.title, description: link.description, setup: link.setup, species, pins };
   }
 
   /** The link behind a token, with its map, if it may be used now. Unknown or revoked → 404; expired → 410. Counts nothing. */

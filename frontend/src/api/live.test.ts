@@ -68,7 +68,7 @@ describe('live events update the caches in place', () => {
   it('moves, adds and removes pins of a viewing link’s view', () => {
     const client = new QueryClient();
     const shared = (id: string, title: string) => ({ id, title, body: '', status: 'open' as const, category: null, geometry: { kind: 'point' as const, at: { alpha: 1, fieldTesla: 1 } } });
-    client.setQueryData<SharedMapView>(viewingLinkKeys.shared('tok'), { title: 'Map', description: '', setup: defaultSetup(), pins: [shared('a', 'A')] });
+    client.setQueryData<SharedMapView>(viewingLinkKeys.shared('tok'), { title: 'Map', description: '', setup: defaultSetup(), species: [], pins: [shared('a', 'A')] });
     const e = (x: Partial<SharedLiveEvent> & Pick<SharedLiveEvent, 'kind'>) => ({ id: '1', mapId: 'm1', at: base.at, ...x }) as SharedLiveEvent;
     applySharedEvent(client, 'tok', e({ kind: 'pin.created', pin: shared('b', 'B') }));
     applySharedEvent(client, 'tok', e({ kind: 'pin.updated', pin: { ...shared('a', 'A2'), status: 'resolved' } }));

@@ -3,13 +3,13 @@ import { App, Button, Space, Spin, Tooltip, Typography } from 'antd';
 import { ArrowLeftOutlined, DesktopOutlined, HistoryOutlined, SaveOutlined, ShareAltOutlined } from '@ant-design/icons';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import { bindingInputsKey, canonicalJson, setupFingerprint, type BindingMapResult, type MapDetail, type MapSetup, type PhaseMapResult, type SpeciesEntry } from '@fieldbound/shared';
+import { bindingInputsKey, canonicalJson, setupFingerprint, type BindingMapResult, type MapDetail, type MapSetup, type PhaseMapResult } from '@fieldbound/shared';
 import { conflictOf, storeMap, useMap, usePutSummary, usePutThumbnail, useRestoreVersion, useSaveAsCopy, useUpdateMap, type UpdateMapVars } from '../api/maps';
 import { useTeamSpecies } from '../api/species';
 import { useCurrentTeam } from '../state/currentTeam';
 import { ExplorerPage, type ExplorerComputed } from '../features/explorer/ExplorerPage';
 import { motionKey } from '../features/explorer/hooks/useMapComputation';
-import type { SpeciesMarker } from '../features/explorer/MapView';
+import { speciesMarkers } from '../features/explorer/speciesMarkers';
 import { ExportMenu } from '../features/export';
 import { ConflictModal } from '../features/maps/ConflictModal';
 import { ShareDialog } from '../features/maps/ShareDialog';
@@ -22,23 +22,6 @@ import { ProblemState } from '../components/ProblemState';
 
 /** Height of the map page's own bar under the app's top bar. */
 const BAR_HEIGHT = 44;
-
-/** Species of the catalogue and the team's lists as overlay markers, findable by name and (catalogue) by symbol. */
-export function speciesMarkers(entries: readonly SpeciesEntry[]): SpeciesMarker[] {
-  const out: SpeciesMarker[] = [];
-  for (const s of entries) {
-    const ea = s.electronAffinity;
-    const details = [
-      `${s.name}${s.symbol ? ` (${s.symbol})` : ''}${s.list ? ` · list ${s.list.name}` : ''}`,
-      `α = ${s.polarizability.value} a₀³${s.polarizability.uncertainty !== null ? ` ± ${s.polarizability.uncertainty}` : ''} — ${s.polarizability.source}`,
-      ea.stableAnion && ea.valueEv !== null ? `electron affinity ${ea.valueEv} eV — ${ea.source ?? 'no source given'}` : 'no stable field-free negative ion',
-    ].join('\n');
-    const marker = { name: s.name, alphaAu: s.polarizability.value, alphaUncertaintyAu: s.polarizability.uncertainty ?? 0, hasFieldFreeAnion: ea.stableAnion, details };
-    out.push(marker);
-    if (s.symbol && s.symbol !== s.name) out.push({ ...marker, name: s.symbol });
-  }
-  return out;
-}
 
 /** Two setups are the same saved content when they differ at most in the shown orbital (view state kept in the URL). */
 function sameContent(a: MapSetup, b: MapSetup): boolean {

@@ -34,7 +34,7 @@ function open(status: number, body: unknown) {
 
 describe('SharedMapPage', () => {
   it('opens the shared setup read-only, with no save, the caption "Read-only view" and the model caution', async () => {
-    open(200, { title: 'Alkali atoms', description: 'For the seminar', setup: defaultSetup(), pins: null });
+    open(200, { title: 'Alkali atoms', description: 'For the seminar', setup: defaultSetup(), species: [], pins: null });
     expect((await screen.findByTestId('explorer')).textContent).toBe('read-only · save not offered · α max 1000');
     expect(screen.getByRole('heading', { name: 'Alkali atoms' })).toBeTruthy();
     expect(screen.getByText('Read-only view')).toBeTruthy();

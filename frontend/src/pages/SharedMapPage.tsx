@@ -1,3 +1,4 @@
+import { useMemo } from 'react';
 import { Alert, Button, Result, Spin, Typography } from 'antd';
 import { ClockCircleOutlined, DesktopOutlined, DisconnectOutlined, EyeOutlined } from '@ant-design/icons';
 import { useNavigate, useParams } from 'react-router-dom';
@@ -6,6 +7,7 @@ import { useSharedPins } from '../features/pins/SharedPins';
 import { ApiError } from '../api/client';
 import { useSharedMap } from '../api/viewingLinks';
 import { ExplorerPage } from '../features/explorer/ExplorerPage';
+import { speciesMarkers } from '../features/explorer/speciesMarkers';
 import { palette } from '../theme/palette';
 import { ProblemState } from '../components/ProblemState';
 
@@ -60,9 +62,11 @@ export function SharedMapPage() {
   return <SharedMapBody token={token!} map={shared.data} />;
 }
 
-/** The opened link: the map computed here, its pins read-only if the link shows them, kept live. */
+/** The opened link: the map computed here with its species overlay, its pins read-only if the link shows them, kept live. */
 function SharedMapBody({ token, map }: { token: string; map: SharedMapView }) {
   const pins = useSharedPins({ token, pins: map.pins });
+  // The link's answer carries the species the overlay names (a visitor cannot read the team's lists).
+  const species = useMemo(() => speciesMarkers(map.species), [map.species]);
   const navigate = useNavigate();
   return (
     <div style={{ display: 'flex', flexDirection: 'column' }} data-testid="shared-map">
@@ -91,7 +95,7 @@ function SharedMapBody({ token, map }: { token: string; map: SharedMapView }) {
         style={{ fontSize: 12.5, padding: '4px 12px' }}
         message="Computed in your browser from the shared setup. The regions are model estimates (an electron bound to a fixed polarizable atom, one Landau orbital at a time); read the caution under the map before quoting a number."
       />
-      <ExplorerPage initialSetup={map.setup} readOnly overlay={pins.overlay} style={{ height: `calc(100vh - 48px - ${BAR_HEIGHT}px - 30px)` }} />
+      <ExplorerPage initialSetup={map.setup} readOnly speciesCatalogue={species} overlay={pins.overlay} style={{ height: `calc(100vh - 48px - ${BAR_HEIGHT}px - 30px)` }} />
       {pins.drawer}
     </div>
   );

@@ -1,8 +1,9 @@
-import { useCallback, useEffect, useRef, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Typography } from 'antd';
 import type { MapSetup, PinGeometry, PinStatus } from '@fieldbound/shared';
 import { palette } from '../../theme/palette';
 import { ExplorerPage, type ExplorerOverlayContext } from '../explorer/ExplorerPage';
+import { speciesMarkers, type SpeciesMarkerSource } from '../explorer/speciesMarkers';
 import { windowAround } from '../pins/pinGeometry';
 import { usePinsOverlay } from '../pins/usePinsOverlay';
 import './lecture.css';
@@ -21,9 +22,13 @@ export interface LectureViewProps {
   description?: string;
   setup: MapSetup;
   pins: readonly LecturePin[];
+  /** Species entries for the overlay's markers (those `setup.species` names are drawn), as the map page has them. */
+  species?: readonly SpeciesMarkerSource[];
   /** Leaves the lecture view (Esc, or the browser leaving full screen). */
   onExit: () => void;
 }
+
+const NO_SPECIES: readonly SpeciesMarkerSource[] = [];
 
 const CAUTION =
   'Model estimates: an electron bound to a fixed polarizable atom in the adiabatic single-orbital approximation (one Landau orbital m at a time); regions near their borders and flagged cells are uncertain. Not a measurement.';
@@ -33,8 +38,9 @@ const CAUTION =
  * model caution; ← and → step through the pins (the map moves to each, its text in the caption), Esc leaves; a ring
  * follows the pointer so the audience sees what is pointed at.
  */
-export function LectureView({ title, description, setup, pins, onExit }: LectureViewProps) {
+export function LectureView({ title, description, setup, pins, species = NO_SPECIES, onExit }: LectureViewProps) {
   const rootRef = useRef<HTMLDivElement>(null);
+  const markers = useMemo(() => speciesMarkers(species), [species]);
   const [step, setStep] = useState(-1);
   const [pointer, setPointer] = useState<{ x: number; y: number } | null>(null);
   const layer = usePinsOverlay({ pins, large: true });
@@ -117,7 +123,7 @@ export function LectureView({ title, description, setup, pins, onExit }: Lecture
         {description && <p className="lecture-description">{description}</p>}
       </header>
       <div className="lecture-map">
-        <ExplorerPage initialSetup={setup} readOnly overlay={overlay} style={{ height: '100%', minHeight: 0, flex: 1 }} />
+        <ExplorerPage initialSetup={setup} readOnly speciesCatalogue={markers} overlay={overlay} style={{ height: '100%', minHeight: 0, flex: 1 }} />
       </div>
       <footer className="lecture-caption" aria-live="polite">
         {current ? (
