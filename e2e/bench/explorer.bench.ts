@@ -30,6 +30,12 @@ interface Marks {
   markTaskMs: number;
   /** Page time of the start mark (from navigation). */
   startAt: number;
+  /** Page time of the request mark (from navigation). */
+  requestedAt: number;
+  /** From the request (mark `fieldbound:map:requested`) to the start mark, ms. */
+  requestToStartMs: number;
+  /** The long task in which the page asks for the map (0 if that task was short): on a first visit, its first render. */
+  requestTaskMs: number;
 }
 
 interface PanFigures {
@@ -149,16 +155,22 @@ async function computationFigures(page: Page, nth: number, since: number): Promi
     ([n, from]) => {
       const at = (name: string) => performance.getEntriesByName(name).map((e) => e.startTime);
       const start = at('fieldbound:map:start')[n - 1];
+      // Pictures are timed from the request (the page asks for the map, then hands the work to the workers after the
+      // next frame, at the start mark); long tasks while computing are counted from the start mark.
+      const requested = at('fieldbound:map:requested')[n - 1] ?? start;
       const full = at('fieldbound:map:full-drawn')[n - 1];
       const coarse = at('fieldbound:map:coarse-drawn').filter((t) => t >= start && t <= full)[0] ?? null;
       const w = window as unknown as { __bench: { longTasks: { start: number; duration: number }[] } };
       const between = (from0: number) => w.__bench.longTasks.filter((t) => t.start + t.duration >= from0 && t.start <= full).map((t) => ({ start: t.start - start, duration: t.duration }));
       return {
-        coarseMs: coarse === null ? null : coarse - start,
-        fullMs: full - start,
+        coarseMs: coarse === null ? null : coarse - requested,
+        fullMs: full - requested,
+        requestToStartMs: start - requested,
+        requestTaskMs: w.__bench.longTasks.find((t) => t.start < requested && t.start + t.duration >= requested)?.duration ?? 0,
         longTasks: between(Math.min(from, start)),
         computingTasks: w.__bench.longTasks.filter((t) => t.start >= start && t.start <= full).map((t) => ({ start: t.start - start, duration: t.duration })),
         startAt: start,
+        requestedAt: requested,
         markTaskMs: w.__bench.longTasks.find((t) => t.start < start && t.start + t.duration >= start)?.duration ?? 0,
       };
     },
@@ -238,7 +250,7 @@ async function main() {
     // Cold: first visit, workers and the engine bundle loaded from scratch.
     await page.goto(`${BASE}/maps/${mapId}`);
     runs.push(await computationFigures(page, 1, 0));
-    log(`cold: start mark at ${fmtMs(runs[0].startAt)} from navigation, first picture ${fmtMs(runs[0].coarseMs)}, full map ${fmtMs(runs[0].fullMs)}, long tasks ${runs[0].longTasks.length} from navigation, ${runs[0].computingTasks.length} from the computation's start`);
+    log(`cold: request at ${fmtMs(runs[0].requestedAt)} from navigation (its task ${fmtMs(runs[0].requestTaskMs)}), start mark ${fmtMs(runs[0].requestToStartMs)} later, first picture ${fmtMs(runs[0].coarseMs)}, full map ${fmtMs(runs[0].fullMs)}, long tasks ${runs[0].longTasks.length} from navigation, ${runs[0].computingTasks.length} from the computation's start`);
     // Warm: recompute after a change of the cutoff (a binding input), workers already running.
     for (let r = 0; r < RUNS; r++) {
       const clickAt = await recompute(page, String(2 + 0.001 * (r + 1)));
@@ -274,9 +286,9 @@ async function main() {
     '|---|---|---|---|',
     `| first picture (coarse 64², drawn), warm workers, median of ${warm.length} | ≤ 300 ms | ${fmtMs(warmCoarse)} (best ${fmtMs(best(warm.map((r) => r.coarseMs)))}) | ${verdict(warmCoarse <= 300)} |`,
     `| full map 256² drawn, warm workers, median of ${warm.length} | ≤ 2000 ms | ${fmtMs(warmFull)} (best ${fmtMs(best(warm.map((r) => r.fullMs)))}) | ${verdict(warmFull <= 2000)} |`,
-    `| first visit (cold workers and bundle): first picture / full map, from the start mark (from navigation) | — | ${fmtMs(runs[0].coarseMs)} / ${fmtMs(runs[0].fullMs)} (${fmtMs(runs[0].coarseMs === null ? null : runs[0].startAt + runs[0].coarseMs)} / ${fmtMs(runs[0].startAt + runs[0].fullMs)}) | |`,
+    `| first visit (cold workers and bundle): first picture / full map, from the request (from navigation) | — | ${fmtMs(runs[0].coarseMs)} / ${fmtMs(runs[0].fullMs)} (${fmtMs(runs[0].coarseMs === null ? null : runs[0].requestedAt + runs[0].coarseMs)} / ${fmtMs(runs[0].requestedAt + runs[0].fullMs)}) | |`,
     `| main-thread long tasks > 50 ms while computing: from pressing Compute to the full map, warm, ${warm.length} computations | none | ${taskCount(warm)} (longest ${Math.round(worstTask(warm))} ms) | ${verdict(taskCount(warm) === 0)} |`,
-    `| main-thread long tasks > 50 ms on the first visit: from the computation's start (mark \`fieldbound:map:start\`) to the full map | none | ${computingCount} (longest ${Math.round(computingWorst)} ms; the task that posts the mark, not counted: ${Math.round(runs[0].markTaskMs)} ms) | ${verdict(computingCount === 0)} |`,
+    `| main-thread long tasks > 50 ms on the first visit: from the computation's start (mark \`fieldbound:map:start\`) to the full map | none | ${computingCount} (longest ${Math.round(computingWorst)} ms; the task that posts the mark: ${Math.round(runs[0].markTaskMs)} ms; the page's render that requests the map, before it: ${Math.round(runs[0].requestTaskMs)} ms) | ${verdict(computingCount === 0)} |`,
     `| main-thread long tasks > 50 ms on the first visit: from navigation (page start-up included) to the full map | none | ${taskCount(runs.slice(0, 1))} (longest ${Math.round(worstTask(runs.slice(0, 1)))} ms) | ${verdict(taskCount(runs.slice(0, 1)) === 0)} |`,
     `| pan and zoom while a recompute runs | ≥ 30 fps | ${pan ? `${pan.fps.toFixed(1)} fps (worst frame ${Math.round(pan.worstFrameMs)} ms, ${pan.longTasks} long tasks)` : '—'} | ${verdict(!!pan && pan.fps >= 30)} |`,
     `| engine alone in Node, one thread (model + rows + phaseMap) | — | ${fmtMs(node.full.total)} (model ${fmtMs(node.full.prepare)}, rows ${fmtMs(node.full.rows)}, phaseMap ${fmtMs(node.full.phase)}) | |`,
@@ -289,7 +301,7 @@ async function main() {
     '',
     `Measured ${when} UTC with \`npm run bench\` (e2e/bench/explorer.bench.ts): the built app served by the backend, Debian's Chromium headless (${userAgent.match(/Chrome\/[\d.]+/)?.[0] ?? 'Chromium'}), ${os.cpus().length} cores (${os.cpus()[0]?.model.trim()}), engine pool of ${Math.min(4, os.cpus().length)} workers. Load average ${load0.map((x) => x.toFixed(1)).join('/')} before and ${load1.map((x) => x.toFixed(1)).join('/')} after (other work shared the machine: times are upper bounds).`,
     '',
-    'Map: 256 × 256, α = 1…1000 a₀³, B = 1…45 T (log axes), r_c ≈ 2 a₀, orbitals m = 0…7, thermal ions at 4 K (mass number 24), observation time 1 s, survivors shown. Times run from the request (User Timing mark `fieldbound:map:start`, where the page starts the computation) to the picture on screen (`…:coarse-drawn`, `…:full-drawn`: contours computed and drawn). Warm runs change the cutoff radius and press Compute; their long tasks are counted from the click (its own task included) to the full map, the first visit’s both from navigation (bundle evaluation and the page’s first renders included) and from the computation’s start mark.',
+    'Map: 256 × 256, α = 1…1000 a₀³, B = 1…45 T (log axes), r_c ≈ 2 a₀, orbitals m = 0…7, thermal ions at 4 K (mass number 24), observation time 1 s, survivors shown. Times run from the request (User Timing mark `fieldbound:map:requested`, where the page asks for the map; it hands the work to the workers after the next frame, mark `…:start`) to the picture on screen (`…:coarse-drawn`, `…:full-drawn`: contours computed and drawn). Warm runs change the cutoff radius and press Compute; their long tasks are counted from the click (its own task included) to the full map, the first visit’s both from navigation (bundle evaluation and the page’s first renders included) and from the computation’s start mark (work handed to the workers) on.',
     '',
     table,
     '',

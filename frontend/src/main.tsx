@@ -1,6 +1,7 @@
 import '@fontsource/ibm-plex-sans/400.css';
 import '@fontsource/ibm-plex-sans/500.css';
 import '@fontsource/ibm-plex-sans/600.css';
+import 'virtual:antd-styles.css';
 import './theme/global.css';
 import { StrictMode, startTransition } from 'react';
 import { createRoot } from 'react-dom/client';

@@ -133,6 +133,34 @@ function mark(label: string | undefined, what: string) {
   if (label) performance.mark(`fieldbound:${label}:${what}`);
 }
 
+/** Longest wait for a frame before running anyway (a page in a background tab gets no frames). */
+const FRAME_WAIT_MS = 100;
+
+/**
+ * Runs `run` in a task of its own after the next frame is rendered (or after `FRAME_WAIT_MS` when no frame comes);
+ * returns a function that cancels it.
+ */
+export function afterNextFrame(run: () => void): () => void {
+  let done = false;
+  let frame: number | null = null;
+  let afterFrame: ReturnType<typeof setTimeout> | null = null;
+  const go = () => {
+    if (done) return;
+    done = true;
+    cancel();
+    run();
+  };
+  const cancel = () => {
+    done = true;
+    if (frame !== null && typeof cancelAnimationFrame === 'function') cancelAnimationFrame(frame);
+    if (afterFrame !== null) clearTimeout(afterFrame);
+    clearTimeout(fallback);
+  };
+  const fallback = setTimeout(go, FRAME_WAIT_MS);
+  if (typeof requestAnimationFrame === 'function') frame = requestAnimationFrame(() => (afterFrame = setTimeout(go, 0)));
+  return cancel;
+}
+
 /**
  * Computes the map of `setup` in the pool. The quick first pass (64 × 64, model to 10⁻³; each worker computes a band
  * of it whole, see `EnginePool.computeMap`'s `quick`) runs first and alone — on a busy 2-core machine the first
@@ -171,69 +199,79 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
     }
     const abort = new AbortController();
     controller.current = abort;
-    const started = performance.now();
-    mark(label, 'start');
-    let firstPictureMs: number | null = null;
-    let fullDone = false;
-    let lastProgress = -Infinity;
-    const motionSetup = startMotion ? current : null;
-    const coarse = wantsCoarse(current) ? coarseSetup(current, COARSE_SIDE) : null;
-
-    progress.set(null);
-    // No state update here: until a result of this key and attempt is stored, the hook reports 'computing' (a render
-    // of the whole page less, in the task that starts the computation).
-    const fail = (e: unknown) => {
-      if (abort.signal.aborted) return; // superseded by a newer setup, or stopped by the user (`cancel` set the state)
-      abort.abort();
-      progress.set(null);
-      const error = e instanceof MapComputeError ? e : new MapComputeError('engine', String(e));
-      setState((s) => ({ ...s, status: 'error', progress: null, error, ...belongs }));
-    };
-
-    const onProgress = (pass: ComputeProgress['pass']) => (p: { done: number; total: number }) => {
+    const requested = performance.now();
+    mark(label, 'requested');
+    // The work goes to the workers after the next frame: the render that asked for the map (on a first visit, the whole
+    // explorer mounting) and the frame that shows it are done before the computation starts, so none of their
+    // main-thread work falls inside the computation. Times still run from the request.
+    const cancelStart = afterNextFrame(() => {
       if (abort.signal.aborted) return;
-      // At most a few renders a second: progress must never cost the page its smoothness.
-      const now = performance.now();
-      if (now - lastProgress < PROGRESS_RENDER_MS && p.done < p.total) return;
-      lastProgress = now;
-      const elapsedMs = now - started;
-      const remainingMs = p.done >= Math.max(1, p.total * 0.05) ? (elapsedMs / p.done) * (p.total - p.done) : null;
-      progress.set({ pass, done: p.done, total: p.total, elapsedMs, remainingMs });
-    };
-    const fullPass = () =>
-      pool.computeMap(current, { timeoutMs, signal: abort.signal, motionSetup, onProgress: onProgress('full') }).then((r) => {
-        if (abort.signal.aborted) return;
-        fullDone = true;
-        progress.set(null);
-        caches.binding.set(key, r.binding);
-        if (r.phase && startMotion) caches.phase.set(`${key}|${startMotion}`, r.phase);
-        const fullMs = performance.now() - started;
-        mark(label, 'full-result');
-        setState({
-          status: 'done', result: r.binding, resultSetup: current, resultPass: 'full', phase: r.phase, phaseKey: r.phase ? startMotion : null,
-          progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs }, ...belongs,
-        });
-      }, fail);
+      mark(label, 'start');
+      let firstPictureMs: number | null = null;
+      let fullDone = false;
+      let lastProgress = -Infinity;
+      const motionSetup = startMotion ? current : null;
+      const coarse = wantsCoarse(current) ? coarseSetup(current, COARSE_SIDE) : null;
 
-    if (coarse) {
-      // The quick pass runs alone, so it has the machine's cores to itself; the full pass starts once it is in.
-      pool
-        .computeMap(coarse, { timeoutMs, signal: abort.signal, tolerance: COARSE_TOLERANCE, quick: true, motionSetup, onProgress: onProgress('coarse') })
-        .then((r) => {
-          if (abort.signal.aborted || fullDone) return;
-          firstPictureMs = performance.now() - started;
-          mark(label, 'coarse-result');
-          // A plain update, not a transition: a transition waits behind (and restarts after) each progress update,
-          // and rendering a result is cheap (the host page and the form are memoised; contours are the worker's).
-          setState((s) => ({ ...s, status: 'computing', error: null, progress: null, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null }, ...belongs }));
-        }, fail)
-        .then(() => {
-          if (!abort.signal.aborted) void fullPass();
-        });
-    } else {
-      void fullPass();
-    }
-    return () => abort.abort();
+      progress.set(null);
+      // No state update here: until a result of this key and attempt is stored, the hook reports 'computing' (a render
+      // of the whole page less, in the task that starts the computation).
+      const fail = (e: unknown) => {
+        if (abort.signal.aborted) return; // superseded by a newer setup, or stopped by the user (`cancel` set the state)
+        abort.abort();
+        progress.set(null);
+        const error = e instanceof MapComputeError ? e : new MapComputeError('engine', String(e));
+        setState((s) => ({ ...s, status: 'error', progress: null, error, ...belongs }));
+      };
+
+      const onProgress = (pass: ComputeProgress['pass']) => (p: { done: number; total: number }) => {
+        if (abort.signal.aborted) return;
+        // At most a few renders a second: progress must never cost the page its smoothness.
+        const now = performance.now();
+        if (now - lastProgress < PROGRESS_RENDER_MS && p.done < p.total) return;
+        lastProgress = now;
+        const elapsedMs = now - requested;
+        const remainingMs = p.done >= Math.max(1, p.total * 0.05) ? (elapsedMs / p.done) * (p.total - p.done) : null;
+        progress.set({ pass, done: p.done, total: p.total, elapsedMs, remainingMs });
+      };
+      const fullPass = () =>
+        pool.computeMap(current, { timeoutMs, signal: abort.signal, motionSetup, onProgress: onProgress('full') }).then((r) => {
+          if (abort.signal.aborted) return;
+          fullDone = true;
+          progress.set(null);
+          caches.binding.set(key, r.binding);
+          if (r.phase && startMotion) caches.phase.set(`${key}|${startMotion}`, r.phase);
+          const fullMs = performance.now() - requested;
+          mark(label, 'full-result');
+          setState({
+            status: 'done', result: r.binding, resultSetup: current, resultPass: 'full', phase: r.phase, phaseKey: r.phase ? startMotion : null,
+            progress: null, error: null, timings: { firstPictureMs: firstPictureMs ?? fullMs, fullMs }, ...belongs,
+          });
+        }, fail);
+
+      if (coarse) {
+        // The quick pass runs alone, so it has the machine's cores to itself; the full pass starts once it is in.
+        pool
+          .computeMap(coarse, { timeoutMs, signal: abort.signal, tolerance: COARSE_TOLERANCE, quick: true, motionSetup, onProgress: onProgress('coarse') })
+          .then((r) => {
+            if (abort.signal.aborted || fullDone) return;
+            firstPictureMs = performance.now() - requested;
+            mark(label, 'coarse-result');
+            // A plain update, not a transition: a transition waits behind (and restarts after) each progress update,
+            // and rendering a result is cheap (the host page and the form are memoised; contours are the worker's).
+            setState((s) => ({ ...s, status: 'computing', error: null, progress: null, result: r.binding, resultSetup: coarse, resultPass: 'coarse', phase: r.phase, phaseKey: r.phase ? startMotion : null, timings: { firstPictureMs, fullMs: null }, ...belongs }));
+          }, fail)
+          .then(() => {
+            if (!abort.signal.aborted) void fullPass();
+          });
+      } else {
+        void fullPass();
+      }
+    });
+    return () => {
+      cancelStart();
+      abort.abort();
+    };
     // `attempt` re-runs after Retry; the setup itself is read through the ref and keyed by `key`.
   }, [pool, key, caches, attempt, timeoutMs, label, progress]);
 
