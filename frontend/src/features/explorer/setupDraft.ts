@@ -16,6 +16,16 @@ export function setIn<T>(obj: T, path: readonly (string | number)[], value: unkn
   return copy as T;
 }
 
+/** The value at a dotted path ("fieldBands.2.minTesla"); undefined where the path leads nowhere. */
+export function getIn(obj: unknown, path: string): unknown {
+  let v: unknown = obj;
+  for (const key of path.split('.')) {
+    if (v === null || typeof v !== 'object') return undefined;
+    v = (v as Record<string, unknown>)[key];
+  }
+  return v;
+}
+
 /** Issues whose path is `path` or lies below it (e.g. "contours.levelsKelvin" also takes "contours.levelsKelvin.2"). */
 export function issuesAt(issues: readonly SetupIssue[], path: string): string[] {
   return issues.filter((i) => i.path === path || i.path.startsWith(`${path}.`)).map((i) => i.message);
