@@ -104,8 +104,12 @@ test('the explorer draws the 4 K demo map, probes a point with the engine’s nu
   });
   test.info().annotations.push({ type: 'probe', description: `α = ${point.alpha} a₀³, B = ${point.tesla} T: ${states.length} states, ${checkedWidths} finite widths` });
 
-  // Zoom in around the middle of the map: the window is recomputed and kept in the URL.
-  await mapOverlay(page).hover({ position: { x: box.width / 2, y: box.height / 2 } });
+  // Zoom in around the middle of the map's uncovered part (the open probe lies over its right side): the window is
+  // recomputed and kept in the URL.
+  const drawer = (await page.getByRole('dialog', { name: 'Probe' }).boundingBox())!;
+  const uncovered = Math.min(box.width, drawer.x - box.x);
+  expect(uncovered, 'the probe leaves part of the map in view').toBeGreaterThan(100);
+  await mapOverlay(page).hover({ position: { x: uncovered / 2, y: box.height / 2 } });
   for (let k = 0; k < 3; k++) await page.mouse.wheel(0, -240);
   await expect(page).toHaveURL(/[?&]alpha=[^&]+/, { timeout: 30_000 });
   await expect(page.getByRole('button', { name: 'Show the whole map' })).toBeEnabled();

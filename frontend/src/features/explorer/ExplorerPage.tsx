@@ -1,6 +1,6 @@
 import { memo, startTransition, useCallback, useEffect, useMemo, useRef, useState, type CSSProperties, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { Button, Drawer, Select, Space, Tooltip, Typography } from 'antd';
+import { Button, Select, Space, Tooltip, Typography } from 'antd';
 import { CompressOutlined, MenuFoldOutlined, MenuUnfoldOutlined } from '@ant-design/icons';
 import { canonicalJson, defaultSetup, teslaToAtomic, validateSetup, type BindingMapResult, type MapSetup, type PhaseMapResult, type Tesla } from '@fieldbound/shared';
 import type { MapOverlayContext } from '../map-render/mapOverlay';
@@ -13,7 +13,7 @@ import { EnginePool, defaultPoolSize } from '../../workers/enginePool';
 import { ComputeStatus } from './ComputeStatus';
 import { MapLegend } from './MapLegend';
 import { MapView, gridAxesOf, type MapLayerInput, type SpeciesMarker } from './MapView';
-import { ProbePanel } from './ProbePanel';
+import { ProbeDrawer } from './ProbeDrawer';
 import { SetupPanel } from './SetupPanel';
 import { createMapCaches, motionKey, useMapComputation } from './hooks/useMapComputation';
 import { useLayerGeometry, type LayerGeometry } from './hooks/useLayerGeometry';
@@ -206,26 +206,26 @@ export const ExplorerPage = memo(function ExplorerPage({
     // Display, contours, motion and observation time apply at once: they never recompute binding energies.
     if (c.valid && !c.needsCompute) setApplied(c.valid);
   }, []);
+  // Read through a ref too: typing a valid value gives a new valid setup but must not re-render the buttons.
+  const checkRef = useRef(check);
+  checkRef.current = check;
   const onCompute = useCallback(() => {
-    if (!check.valid) return;
-    const axesChanged = check.valid.alphaAxis.min !== applied.alphaAxis.min || check.valid.alphaAxis.max !== applied.alphaAxis.max || check.valid.fieldAxis.min !== applied.fieldAxis.min || check.valid.fieldAxis.max !== applied.fieldAxis.max || check.valid.alphaAxis.scale !== applied.alphaAxis.scale || check.valid.fieldAxis.scale !== applied.fieldAxis.scale;
-    const next = check.valid;
+    const next = checkRef.current.valid;
+    const current = appliedRef.current;
+    if (!next) return;
+    const axesChanged = next.alphaAxis.min !== current.alphaAxis.min || next.alphaAxis.max !== current.alphaAxis.max || next.fieldAxis.min !== current.fieldAxis.min || next.fieldAxis.max !== current.fieldAxis.max || next.alphaAxis.scale !== current.alphaAxis.scale || next.fieldAxis.scale !== current.fieldAxis.scale;
     // As a transition: the click itself only handles the input (the button's feedback paints at once); the page
     // renders the new setup in slices in the next tasks, and the computation starts from there.
     startTransition(() => {
       setApplied(next);
       if (axesChanged) setView(setupWindow(next));
     });
-  }, [check.valid, applied]);
+  }, []);
 
-  const setShown = useCallback(
-    (s: ShownQuantity) => {
-      const next = { ...applied, display: { ...applied.display, shown: s } };
-      setApplied(next);
-      setDraft((d) => ({ ...d, display: { ...d.display, shown: s } }));
-    },
-    [applied],
-  );
+  const setShown = useCallback((s: ShownQuantity) => {
+    setApplied((a) => ({ ...a, display: { ...a.display, shown: s } }));
+    setDraft((d) => ({ ...d, display: { ...d.display, shown: s } }));
+  }, []);
 
   const readout = useCallback(
     (alphaAu: number, tesla: number) => {
@@ -241,9 +241,20 @@ export const ExplorerPage = memo(function ExplorerPage({
   );
 
   const onProbe = useCallback((p: ProbePoint) => setProbe(roundProbe(p)), []);
-  // Stable while the setup is unchanged, so progress renders of the page never re-render the setup form.
-  const validSetup = check.valid;
-  const onSaveValid = useMemo(() => (onSaveSetup && validSetup ? () => onSaveSetup(validSetup) : undefined), [onSaveSetup, validSetup]);
+  const closeProbe = useCallback(() => setProbe(null), []);
+  // Offered while the draft is valid; stable while it stays valid (it saves the newest valid setup), so neither
+  // progress renders of the page nor keystrokes re-render the setup's buttons.
+  const hasValidSetup = check.valid !== null;
+  const onSaveValid = useMemo(
+    () =>
+      onSaveSetup && hasValidSetup
+        ? () => {
+            const valid = checkRef.current.valid;
+            if (valid) onSaveSetup(valid);
+          }
+        : undefined,
+    [onSaveSetup, hasValidSetup],
+  );
   const species = useMemo(() => speciesCatalogue.filter((s) => applied.species.includes(s.name)), [speciesCatalogue, speciesKey]);
   // One choice per atom (the catalogue lists an atom under its name and its symbol; the shorter one is stored).
   const speciesOptions = useMemo(() => {
@@ -259,46 +270,25 @@ export const ExplorerPage = memo(function ExplorerPage({
   const geometryError = baseGeometry.error ?? windowGeometry.error;
   const fullTiming = base.state.timings;
 
+  const hidePanel = useCallback(() => setPanelOpen(false), []);
+  const showPanel = useCallback(() => setPanelOpen(true), []);
+  const showWholeMap = useCallback(() => setView(setupWindow(appliedRef.current)), []);
+  const statusText =
+    `${applied.grid.nAlpha} × ${applied.grid.nField} grid · orbitals m = 0…${applied.orbitals.mMax} · energies in ${ENERGY_UNIT_LABEL[applied.display.energyUnit]}` +
+    (fullTiming.fullMs !== null ? ` · computed in ${(fullTiming.fullMs / 1000).toFixed(1)} s` : '') +
+    (fullTiming.fullMs !== null && fullTiming.firstPictureMs !== null && fullTiming.firstPictureMs < fullTiming.fullMs ? ` (first picture ${(fullTiming.firstPictureMs / 1000).toFixed(2)} s)` : '') +
+    (base.state.resultPass === 'coarse' ? ' · showing the quick first pass' : '');
+
   return (
     <div className="explorer-page" style={{ position: 'relative', overflow: 'hidden', display: 'flex', height: 'calc(100vh - 48px)', minHeight: 420, background: palette.paper, ...style }}>
       {panelOpen && !readOnly && (
         <aside aria-label="Setup" style={{ width: 320, flex: 'none', overflowY: 'auto', padding: '8px 14px 24px', borderRight: `1px solid ${palette.unbound}`, background: '#fff' }}>
-          <Space style={{ justifyContent: 'space-between', width: '100%' }}>
-            <Typography.Title level={5} style={{ margin: '4px 0' }}>
-              Setup
-            </Typography.Title>
-            <Tooltip title="Hide the setup">
-              <Button type="text" size="small" aria-label="Hide the setup" icon={<MenuFoldOutlined />} onClick={() => setPanelOpen(false)} />
-            </Tooltip>
-          </Space>
+          <SetupHeader onHide={hidePanel} />
           <SetupPanel draft={draft} issues={check.issues} onChange={onDraftChange} onCompute={onCompute} needsCompute={check.needsCompute} onSave={onSaveValid} saveLabel={saveLabel} speciesOptions={speciesOptions.length ? speciesOptions : undefined} />
         </aside>
       )}
       <main style={{ flex: 1, minWidth: 0, display: 'flex', flexDirection: 'column' }}>
-        <div style={{ display: 'flex', alignItems: 'center', gap: 12, padding: '6px 12px', borderBottom: `1px solid ${palette.unbound}`, background: '#fff', flexWrap: 'wrap' }}>
-          {!panelOpen && !readOnly && (
-            <Tooltip title="Show the setup">
-              <Button size="small" aria-label="Show the setup" icon={<MenuUnfoldOutlined />} onClick={() => setPanelOpen(true)} />
-            </Tooltip>
-          )}
-          <Select
-            size="small"
-            aria-label="Regions show"
-            value={shown.kind === 'survivors' ? 'survivors' : `m${shown.m}`}
-            onChange={(v: string) => setShown(v === 'survivors' ? { kind: 'survivors' } : { kind: 'orbital', m: Number(v.slice(1)) })}
-            options={[...Array.from({ length: applied.orbitals.mMax + 1 }, (_, m) => ({ value: `m${m}`, label: `Orbital m = ${m}` })), { value: 'survivors', label: 'Survivors' }]}
-            style={{ width: 150 }}
-          />
-          <Button size="small" icon={<CompressOutlined />} disabled={!zoomed} onClick={() => setView(setupWindow(applied))}>
-            Show the whole map
-          </Button>
-          <Typography.Text type="secondary" style={{ fontSize: 12 }}>
-            {applied.grid.nAlpha} × {applied.grid.nField} grid · orbitals m = 0…{applied.orbitals.mMax} · energies in {ENERGY_UNIT_LABEL[applied.display.energyUnit]}
-            {fullTiming.fullMs !== null ? ` · computed in ${(fullTiming.fullMs / 1000).toFixed(1)} s` : ''}
-            {fullTiming.fullMs !== null && fullTiming.firstPictureMs !== null && fullTiming.firstPictureMs < fullTiming.fullMs ? ` (first picture ${(fullTiming.firstPictureMs / 1000).toFixed(2)} s)` : ''}
-            {base.state.resultPass === 'coarse' ? ' · showing the quick first pass' : ''}
-          </Typography.Text>
-        </div>
+        <ExplorerToolbar onShowSetup={!panelOpen && !readOnly ? showPanel : undefined} shown={shown} mMax={applied.orbitals.mMax} onShownChange={setShown} zoomed={zoomed !== null} onShowWhole={showWholeMap} status={statusText} />
         <div style={{ position: 'relative', flex: 1, minHeight: 0, display: 'flex' }}>
           <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={onProbe} species={species} overlay={mapOverlay} />
           <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={motionApplied} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} />
@@ -314,9 +304,60 @@ export const ExplorerPage = memo(function ExplorerPage({
         </footer>
       </main>
       {/* Inside the explorer's box (not over the host page's header, whose Save and Export stay reachable). */}
-      <Drawer title="Probe" placement="right" size={420} open={probe !== null} onClose={() => setProbe(null)} mask={false} destroyOnHidden getContainer={false}>
-        {probe && <ProbePanel point={probe} setup={applied} pool={workers?.probe ?? null} />}
-      </Drawer>
+      <ProbeDrawer point={probe} setup={applied} pool={workers?.probe ?? null} onClose={closeProbe} />
+    </div>
+  );
+});
+
+/** The setup column's title and its hide button (memoised: typing in the setup does not re-render it). */
+const SetupHeader = memo(function SetupHeader({ onHide }: { onHide: () => void }) {
+  return (
+    <Space style={{ justifyContent: 'space-between', width: '100%' }}>
+      <Typography.Title level={5} style={{ margin: '4px 0' }}>
+        Setup
+      </Typography.Title>
+      <Tooltip title="Hide the setup">
+        <Button type="text" size="small" aria-label="Hide the setup" icon={<MenuFoldOutlined />} onClick={onHide} />
+      </Tooltip>
+    </Space>
+  );
+});
+
+interface ExplorerToolbarProps {
+  /** Shown while the setup column is hidden. */
+  onShowSetup?: () => void;
+  shown: ShownQuantity;
+  mMax: number;
+  onShownChange: (shown: ShownQuantity) => void;
+  zoomed: boolean;
+  onShowWhole: () => void;
+  status: string;
+}
+
+/** The bar above the map: what the regions show, back to the whole map, and the computation's one-line status. */
+const ExplorerToolbar = memo(function ExplorerToolbar({ onShowSetup, shown, mMax, onShownChange, zoomed, onShowWhole, status }: ExplorerToolbarProps) {
+  const options = useMemo(() => [...Array.from({ length: mMax + 1 }, (_, m) => ({ value: `m${m}`, label: `Orbital m = ${m}` })), { value: 'survivors', label: 'Survivors' }], [mMax]);
+  return (
+    <div style={{ display: 'flex', alignItems: 'center', gap: 12, padding: '6px 12px', borderBottom: `1px solid ${palette.unbound}`, background: '#fff', flexWrap: 'wrap' }}>
+      {onShowSetup && (
+        <Tooltip title="Show the setup">
+          <Button size="small" aria-label="Show the setup" icon={<MenuUnfoldOutlined />} onClick={onShowSetup} />
+        </Tooltip>
+      )}
+      <Select
+        size="small"
+        aria-label="Regions show"
+        value={shown.kind === 'survivors' ? 'survivors' : `m${shown.m}`}
+        onChange={(v: string) => onShownChange(v === 'survivors' ? { kind: 'survivors' } : { kind: 'orbital', m: Number(v.slice(1)) })}
+        options={options}
+        style={{ width: 150 }}
+      />
+      <Button size="small" icon={<CompressOutlined />} disabled={!zoomed} onClick={onShowWhole}>
+        Show the whole map
+      </Button>
+      <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+        {status}
+      </Typography.Text>
     </div>
   );
 });

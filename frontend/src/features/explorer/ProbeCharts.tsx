@@ -6,13 +6,18 @@ import { axisTicks } from '../map-render/axisScale';
 import { energyToDisplay } from '../map-render/displayUnits';
 import { formatScientific } from '../map-render/formatNumber';
 
-const W = 340;
+/** Width a chart is drawn at when its panel's width is not known yet (and the narrowest it gets). */
+export const CHART_MIN_WIDTH = 300;
 const H = 170;
 const M = { top: 10, right: 12, bottom: 34, left: 58 };
-const pw = W - M.left - M.right;
 const ph = H - M.top - M.bottom;
 
-function XTicks({ ticks, x }: { ticks: { value: number; label: string; major: boolean }[]; x: (v: number) => number }) {
+/** Plot width inside the margins for a chart `width` pixels wide. */
+const plotWidth = (width: number) => Math.max(CHART_MIN_WIDTH, width) - M.left - M.right;
+/** About one labelled tick per 80 px of axis (at least 3). */
+const tickCount = (pw: number) => Math.max(3, Math.round(pw / 80));
+
+function XTicks({ ticks, x, pw }: { ticks: { value: number; label: string; major: boolean }[]; x: (v: number) => number; pw: number }) {
   return (
     <g transform={`translate(0,${ph})`}>
       <line x1={0} x2={pw} stroke={palette.ink} strokeOpacity={0.6} />
@@ -38,13 +43,15 @@ export interface PotentialChartProps {
   bindingHartree: number;
   energyUnit: 'ueV' | 'meV' | 'K' | 'GHz';
   energyUnitLabel: string;
+  /** Drawn this wide (the panel's width or half of it); at least CHART_MIN_WIDTH. */
+  width: number;
 }
 
 /**
  * V_m(z) along the field (z ≥ 0, log scale from the core to the level's tail) with the level at −ε. The curve
  * is clipped at −12 ε so the level stays readable when the core is much deeper.
  */
-export const PotentialChart = memo(function PotentialChart({ m, alphaAu, fieldAu, cutoffBohr, bindingHartree, energyUnit, energyUnitLabel }: PotentialChartProps) {
+export const PotentialChart = memo(function PotentialChart({ m, alphaAu, fieldAu, cutoffBohr, bindingHartree, energyUnit, energyUnitLabel, width }: PotentialChartProps) {
   const data = useMemo(() => {
     const kappa = Math.sqrt(2 * bindingHartree);
     const l = 1 / Math.sqrt(fieldAu);
@@ -57,6 +64,7 @@ export const PotentialChart = memo(function PotentialChart({ m, alphaAu, fieldAu
     const bottom = Math.max(vmin, -12 * eps);
     return { points, eps, z0, z1, bottom, clipped: vmin < bottom };
   }, [m, alphaAu, fieldAu, cutoffBohr, bindingHartree, energyUnit]);
+  const pw = plotWidth(width);
   const x = scaleLog().domain([data.z0, data.z1]).range([0, pw]);
   const y = scaleLinear().domain([data.bottom * 1.05, Math.abs(data.bottom) * 0.08]).range([ph, 0]);
   const path = line<[number, number]>().x((p) => x(p[0])).y((p) => y(Math.max(p[1], data.bottom * 1.05)))(data.points) ?? '';
@@ -66,7 +74,7 @@ export const PotentialChart = memo(function PotentialChart({ m, alphaAu, fieldAu
       <figcaption style={{ fontSize: 12, marginBottom: 2 }}>
         Effective potential V<sub>{m}</sub>(z) along the field, and the level at −ε
       </figcaption>
-      <svg width={W} height={H} role="img" aria-label={`Effective potential of orbital ${m}`}>
+      <svg width={pw + M.left + M.right} height={H} role="img" aria-label={`Effective potential of orbital ${m}`}>
         <g transform={`translate(${M.left},${M.top})`}>
           <line x1={0} x2={pw} y1={y(0)} y2={y(0)} stroke={palette.ink} strokeOpacity={0.3} />
           <path d={path} fill="none" stroke={palette.bound} strokeWidth={1.6} />
@@ -79,7 +87,7 @@ export const PotentialChart = memo(function PotentialChart({ m, alphaAu, fieldAu
               deeper core not shown
             </text>
           )}
-          <XTicks ticks={axisTicks('log', [data.z0, data.z1], 4)} x={x} />
+          <XTicks ticks={axisTicks('log', [data.z0, data.z1], tickCount(pw))} x={x} pw={pw} />
           <g>
             <line y1={0} y2={ph} stroke={palette.ink} strokeOpacity={0.6} />
             {yTicks.map((v) => (
@@ -109,22 +117,25 @@ export interface RingChartProps {
   fieldAu: number;
   alphaAu: number;
   cutoffBohr: number;
+  /** Drawn this wide (the panel's width or half of it); at least CHART_MIN_WIDTH. */
+  width: number;
 }
 
 /** Ring radius l√(2(m + 1)) of each orbital against the atom's size: α^(1/3) and the cutoff radius r_c. */
-export const RingChart = memo(function RingChart({ mMax, selectedM, fieldAu, alphaAu, cutoffBohr }: RingChartProps) {
+export const RingChart = memo(function RingChart({ mMax, selectedM, fieldAu, alphaAu, cutoffBohr, width }: RingChartProps) {
   const l = 1 / Math.sqrt(fieldAu);
   const rings = Array.from({ length: mMax + 1 }, (_, m) => ({ m, r: l * Math.sqrt(2 * (m + 1)) }));
   const atom = Math.cbrt(alphaAu);
   const values = [...rings.map((r) => r.r), atom, cutoffBohr];
   const lo = Math.min(...values) / 2;
   const hi = Math.max(...values) * 2;
+  const pw = plotWidth(width);
   const x = scaleLog().domain([lo, hi]).range([0, pw]);
   const rowH = Math.min(14, (ph - 20) / rings.length);
   return (
     <figure style={{ margin: 0 }}>
       <figcaption style={{ fontSize: 12, marginBottom: 2 }}>Orbital ring radius l√(2(m+1)) and the atom’s size</figcaption>
-      <svg width={W} height={H} role="img" aria-label="Orbital ring radii compared with the atom's size">
+      <svg width={pw + M.left + M.right} height={H} role="img" aria-label="Orbital ring radii compared with the atom's size">
         <g transform={`translate(${M.left},${M.top})`}>
           {[
             { v: atom, label: 'α^⅓', colour: palette.speciesWithAnion },
@@ -146,7 +157,7 @@ export const RingChart = memo(function RingChart({ mMax, selectedM, fieldAu, alp
               </text>
             </g>
           ))}
-          <XTicks ticks={axisTicks('log', [lo, hi], 4)} x={x} />
+          <XTicks ticks={axisTicks('log', [lo, hi], tickCount(pw))} x={x} pw={pw} />
           <text x={pw / 2} y={ph + 30} textAnchor="middle" fontSize={11} fill={palette.ink}>
             radius (a₀)
           </text>

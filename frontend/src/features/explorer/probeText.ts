@@ -76,6 +76,14 @@ export function lifetimeText(row: ProbeRow, digits = 3): string {
   return formatScientific(row.lifetimeSeconds, { digits });
 }
 
+/**
+ * A formatted number for a narrow table cell: narrow no-break spaces around "×" ("7.08 × 10⁻⁵" stays one
+ * unbreakable, shorter run; it reads back the same).
+ */
+export function tightNumber(text: string): string {
+  return text.replace(/ × /g, '\u202f×\u202f');
+}
+
 const percent = (x: number) => `${formatScientific(100 * x, { digits: 3, plainMin: 0.01 })} %`;
 
 /** Class, with the thermal fractions when there are any: "bound (bound 99.2 %, resonance 0.8 %, unbound 0 %)". */
