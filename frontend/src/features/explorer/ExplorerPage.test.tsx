@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fireEvent, render, screen } from '@testing-library/react';
-import { MemoryRouter } from 'react-router-dom';
+import { MemoryRouter, useLocation } from 'react-router-dom';
 import { App as AntdApp } from 'antd';
 import { defaultSetup } from '@fieldbound/shared';
 import { ExplorerPage } from './ExplorerPage';
@@ -30,5 +30,38 @@ describe('ExplorerPage when the engine worker fails', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Retry' }));
     expect(await screen.findByText(/computed in \d+\.\d s/, {}, { timeout: 10_000 })).toBeTruthy();
     expect(screen.queryByText('Could not compute the map')).toBeNull();
+  });
+});
+
+/** The address as the router holds it. */
+function Address() {
+  const location = useLocation();
+  return <output aria-label="address">{location.search}</output>;
+}
+
+describe('ExplorerPage view state in the address', () => {
+  const open = (entry: string) =>
+    render(
+      <MemoryRouter initialEntries={[entry]}>
+        <AntdApp>
+          <ExplorerPage initialSetup={setup} createEngineWorker={() => new FakeEngineWorker(fakeEngineApi()) as unknown as Worker} createContourWorker={contourWorker} />
+          <Address />
+        </AntdApp>
+      </MemoryRouter>,
+    );
+
+  it("opening a map leaves its address alone: the map's own shown quantity and whole window are not added", { timeout: 30_000 }, async () => {
+    open('/explore?team=7');
+    expect(await screen.findByText(/computed in \d+\.\d s/, {}, { timeout: 10_000 })).toBeTruthy();
+    expect(screen.getByLabelText('address').textContent).toBe('?team=7');
+  });
+
+  it('an address that names the shown quantity keeps it, and a probe point is added when one is probed', { timeout: 30_000 }, async () => {
+    open('/explore?show=survivors&probe=20%2C5');
+    expect(await screen.findByText(/computed in \d+\.\d s/, {}, { timeout: 10_000 })).toBeTruthy();
+    const address = new URLSearchParams(screen.getByLabelText('address').textContent ?? '');
+    expect(address.get('show')).toBe('survivors');
+    expect(address.get('probe')).toBe('20,5');
+    expect(address.get('alpha')).toBeNull();
   });
 });

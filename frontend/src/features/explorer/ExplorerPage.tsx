@@ -68,6 +68,11 @@ export interface ExplorerComputed {
 
 const NO_SPECIES: readonly SpeciesMarker[] = [];
 
+/** A shown quantity as a string, to compare by value. */
+function shownKeyOf(shown: MapSetup['display']['shown']): string {
+  return shown.kind === 'survivors' ? 'survivors' : `m${shown.m}`;
+}
+
 /** Applies the URL's shown orbital to a setup when it is valid there. */
 function withShown(setup: MapSetup, shown: ShownQuantity | null): MapSetup {
   if (!shown) return setup;
@@ -151,7 +156,7 @@ export const ExplorerPage = memo(function ExplorerPage({
   }, [baseStatus, basePass, baseResult, baseResultSetup, baseFullMs, basePhase, basePhaseKey, onComputed]);
 
   // Kept by value: a newly applied setup with the same shown quantity, levels and species changes nothing drawn.
-  const shownKey = applied.display.shown.kind === 'survivors' ? 'survivors' : `m${applied.display.shown.m}`;
+  const shownKey = shownKeyOf(applied.display.shown);
   const shown = useMemo(() => applied.display.shown, [shownKey]);
   const levelsKey = applied.contours.levelsKelvin.join(',');
   const levels = useMemo(() => applied.contours.levelsKelvin, [levelsKey]);
@@ -190,11 +195,19 @@ export const ExplorerPage = memo(function ExplorerPage({
     }
   }, [layers, base.state, windowComp.state, baseGeometry, windowGeometry]);
 
-  // Keep the view state in the URL (replace, so the back button leaves the page rather than stepping zooms).
+  // Keep the view state in the URL (replace, so the back button leaves the page rather than stepping zooms). Like the
+  // whole-map window, the saved map's own shown quantity is not added when the address has none: a link without it
+  // opens the same view, and opening a map does not rewrite its address (a router navigation that re-renders the page
+  // in its first task). An address that names it keeps it.
+  const openedShownKey = useRef(fromUrl.shown ? null : shownKeyOf((initialSetup ?? defaultSetup()).display.shown)).current;
   useEffect(() => {
-    const next = writeViewParams(params, { view: sameWindow(view, setupWindow(applied)) ? null : view, shown, probe });
+    const next = writeViewParams(params, {
+      view: sameWindow(view, setupWindow(applied)) ? null : view,
+      shown: shownKeyOf(shown) === openedShownKey ? null : shown,
+      probe,
+    });
     if (next.toString() !== params.toString()) setParams(next, { replace: true });
-  }, [view, shown, probe, applied, params, setParams]);
+  }, [view, shown, probe, applied, params, setParams, openedShownKey]);
 
   const check = useMemo(() => ({ ...validated, needsCompute: changesBinding(validated.valid, applied) }), [validated, applied]);
   // Stable across applied setups (read through a ref), so the memoised form fields keep their props.
