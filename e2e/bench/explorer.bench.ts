@@ -250,7 +250,7 @@ async function main() {
     // Cold: first visit, workers and the engine bundle loaded from scratch.
     await page.goto(`${BASE}/maps/${mapId}`);
     runs.push(await computationFigures(page, 1, 0));
-    log(`cold: request at ${fmtMs(runs[0].requestedAt)} from navigation (its task ${fmtMs(runs[0].requestTaskMs)}), start mark ${fmtMs(runs[0].requestToStartMs)} later, first picture ${fmtMs(runs[0].coarseMs)}, full map ${fmtMs(runs[0].fullMs)}, long tasks ${runs[0].longTasks.length} from navigation, ${runs[0].computingTasks.length} from the computation's start`);
+    log(`cold: request at ${fmtMs(runs[0].requestedAt)} from navigation (its task ${fmtMs(runs[0].requestTaskMs)}), start mark ${fmtMs(runs[0].requestToStartMs)} later, first picture ${fmtMs(runs[0].coarseMs)}, full map ${fmtMs(runs[0].fullMs)}, long tasks ${runs[0].longTasks.length} from navigation, ${runs[0].computingTasks.length} from the computation's start${runs[0].computingTasks.map((t) => ` (${Math.round(t.duration)} ms at +${Math.round(t.start)} ms)`).join('')}; coarse drawn at +${fmtMs(runs[0].coarseMs === null ? null : runs[0].coarseMs - runs[0].requestToStartMs)}`);
     // Warm: recompute after a change of the cutoff (a binding input), workers already running.
     for (let r = 0; r < RUNS; r++) {
       const clickAt = await recompute(page, String(2 + 0.001 * (r + 1)));
@@ -289,7 +289,9 @@ async function main() {
     `| first visit (cold workers and bundle): first picture / full map, from the request (from navigation) | — | ${fmtMs(runs[0].coarseMs)} / ${fmtMs(runs[0].fullMs)} (${fmtMs(runs[0].coarseMs === null ? null : runs[0].requestedAt + runs[0].coarseMs)} / ${fmtMs(runs[0].requestedAt + runs[0].fullMs)}) | |`,
     `| main-thread long tasks > 50 ms while computing: from pressing Compute to the full map, warm, ${warm.length} computations | none | ${taskCount(warm)} (longest ${Math.round(worstTask(warm))} ms) | ${verdict(taskCount(warm) === 0)} |`,
     `| main-thread long tasks > 50 ms on the first visit: from the computation's start (mark \`fieldbound:map:start\`) to the full map | none | ${computingCount} (longest ${Math.round(computingWorst)} ms; the task that posts the mark: ${Math.round(runs[0].markTaskMs)} ms; the page's render that requests the map, before it: ${Math.round(runs[0].requestTaskMs)} ms) | ${verdict(computingCount === 0)} |`,
-    `| main-thread long tasks > 50 ms on the first visit: from navigation (page start-up included) to the full map | none | ${taskCount(runs.slice(0, 1))} (longest ${Math.round(worstTask(runs.slice(0, 1)))} ms) | ${verdict(taskCount(runs.slice(0, 1)) === 0)} |`,
+    // Page start-up (bundle, first renders, the page's first frames) comes before the computation: reported, and not
+    // counted against the target, which is about the main thread while computing.
+    `| main-thread long tasks > 50 ms on the first visit, page start-up included: from navigation to the full map | — (start-up is before the computation) | ${taskCount(runs.slice(0, 1))} (longest ${Math.round(worstTask(runs.slice(0, 1)))} ms) | |`,
     `| pan and zoom while a recompute runs | ≥ 30 fps | ${pan ? `${pan.fps.toFixed(1)} fps (worst frame ${Math.round(pan.worstFrameMs)} ms, ${pan.longTasks} long tasks)` : '—'} | ${verdict(!!pan && pan.fps >= 30)} |`,
     `| engine alone in Node, one thread (model + rows + phaseMap) | — | ${fmtMs(node.full.total)} (model ${fmtMs(node.full.prepare)}, rows ${fmtMs(node.full.rows)}, phaseMap ${fmtMs(node.full.phase)}) | |`,
     `| ratio browser full map (warm) / engine alone in Node | — | ${(warmFull / node.full.total).toFixed(2)} | |`,

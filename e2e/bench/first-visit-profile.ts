@@ -111,7 +111,8 @@ async function main() {
     const cssinjs = /^(useStyleRegister|useGlobalCache|useCacheToken|useCSSVarRegister|parseStyle|serialize|compile|genStyleHooks|genComponentStyleHook|injectCSS\$?1?|updateCSS\$?1?|getComputedToken|formatToken|genCSSVarRegister|useToken|mergeToken|statisticToken)$/;
     let cssTotal = 0;
     let taskTotal = 0;
-    for (const task of tasks) {
+    const onlyAfter = Number(process.env.FIELDBOUND_PROFILE_AFTER_MARK ? await page.evaluate((m) => performance.getEntriesByName(m)[0]?.startTime ?? 0, process.env.FIELDBOUND_PROFILE_AFTER_MARK) : 0);
+    for (const task of tasks.filter((tk) => tk.start + tk.duration >= onlyAfter)) {
       const self = new Map<string, number>();
       const files = new Map<string, number>();
       const stacks = new Map<string, number>();

@@ -11,6 +11,7 @@ import { ExplorerPage, type ExplorerComputed } from '../features/explorer/Explor
 import { motionKey } from '../features/explorer/hooks/useMapComputation';
 import { speciesMarkers } from '../features/explorer/speciesMarkers';
 import { ExportMenu } from '../features/export';
+import { OpenedOnce } from '../components/OpenedOnce';
 import { ConflictModal } from '../features/maps/ConflictModal';
 import { ShareDialog } from '../features/maps/ShareDialog';
 import { UnsavedChangesGuard } from '../features/maps/UnsavedChangesGuard';
@@ -261,23 +262,31 @@ function MapEditor({ map }: { map: MapDetail }) {
       </div>
       {pins.drawer}
       <UnsavedChangesGuard when={shouldWarn} message="This map has unsaved changes. Leave anyway and lose them?" />
-      <ConflictModal
-        theirs={conflict?.theirs ?? null}
-        onReloadTheirs={reloadTheirs}
-        onKeepMineAsCopy={keepMineAsCopy}
-        onClose={() => setConflict(null)}
-        copying={saveAsCopy.isPending}
-        error={copyError}
-      />
-      <VersionsDrawer
-        mapId={map.id}
-        currentVersion={map.version}
-        open={versionsOpen}
-        onClose={() => setVersionsOpen(false)}
-        onRestore={canEdit ? onRestoreVersion : undefined}
-        restoring={restoreVersion.isPending ? (restoreVersion.variables?.number ?? null) : null}
-      />
-      {canEdit && <ShareDialog mapId={map.id} mapTitle={map.title} open={shareOpen} onClose={() => setShareOpen(false)} />}
+      <OpenedOnce open={!!conflict?.theirs}>
+        <ConflictModal
+          theirs={conflict?.theirs ?? null}
+          onReloadTheirs={reloadTheirs}
+          onKeepMineAsCopy={keepMineAsCopy}
+          onClose={() => setConflict(null)}
+          copying={saveAsCopy.isPending}
+          error={copyError}
+        />
+      </OpenedOnce>
+      <OpenedOnce open={versionsOpen}>
+        <VersionsDrawer
+          mapId={map.id}
+          currentVersion={map.version}
+          open={versionsOpen}
+          onClose={() => setVersionsOpen(false)}
+          onRestore={canEdit ? onRestoreVersion : undefined}
+          restoring={restoreVersion.isPending ? (restoreVersion.variables?.number ?? null) : null}
+        />
+      </OpenedOnce>
+      {canEdit && (
+        <OpenedOnce open={shareOpen}>
+          <ShareDialog mapId={map.id} mapTitle={map.title} open={shareOpen} onClose={() => setShareOpen(false)} />
+        </OpenedOnce>
+      )}
     </div>
   );
 }

@@ -14,6 +14,7 @@ import { ComputeStatus } from './ComputeStatus';
 import { MapLegend } from './MapLegend';
 import { MapView, gridAxesOf, type MapLayerInput, type SpeciesMarker } from './MapView';
 import { ProbeDrawer } from './ProbeDrawer';
+import { OpenedOnce } from '../../components/OpenedOnce';
 import { SetupPanel } from './SetupPanel';
 import { createMapCaches, motionKey, useMapComputation } from './hooks/useMapComputation';
 import { useLayerGeometry, type LayerGeometry } from './hooks/useLayerGeometry';
@@ -317,7 +318,9 @@ export const ExplorerPage = memo(function ExplorerPage({
         </footer>
       </main>
       {/* Inside the explorer's box (not over the host page's header, whose Save and Export stay reachable). */}
-      <ProbeDrawer point={probe} setup={applied} pool={workers?.probe ?? null} onClose={closeProbe} />
+      <OpenedOnce open={probe !== null}>
+        <ProbeDrawer point={probe} setup={applied} pool={workers?.probe ?? null} onClose={closeProbe} />
+      </OpenedOnce>
     </div>
   );
 });

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Alert, Button, Dropdown, Modal, Progress, type MenuProps } from 'antd';
 import { DownloadOutlined } from '@ant-design/icons';
+import { OpenedOnce } from '../../components/OpenedOnce';
 import {
   ENGINE_VERSION, estimateMapCsv, estimateMapJson, mapCsvChunks, mapJsonChunks,
   type BindingMapResult, type MapSetup, type PhaseMapResult,
@@ -96,17 +97,23 @@ export function ExportMenu({ setup, bindingMap, phaseMap, getFigureSvg, title, n
       <Dropdown menu={{ items, onClick }} trigger={['click']}>
         <Button icon={<DownloadOutlined />}>Export</Button>
       </Dropdown>
-      <FigureExportModal open={dialog === 'figure'} onClose={() => setDialog(null)} setup={setup} title={title} getFigureSvg={getFigureSvg} now={now} exporter={figureExporter} />
-      <MethodsNoteModal open={dialog === 'methods'} onClose={() => setDialog(null)} setup={setup} bindingMap={binding} />
-      <Modal open={notice !== null} title="Export" onCancel={() => setNotice(null)} footer={notice?.kind === 'error' ? <Button onClick={() => setNotice(null)}>Close</Button> : null} closable={notice?.kind === 'error'}>
-        {notice?.kind === 'error' && <Alert type="error" showIcon role="alert" title={notice.text} />}
-        {notice?.kind === 'progress' && (
-          <>
-            <div>{notice.text}</div>
-            <Progress percent={notice.percent ?? 0} />
-          </>
-        )}
-      </Modal>
+      <OpenedOnce open={dialog === 'figure'}>
+        <FigureExportModal open={dialog === 'figure'} onClose={() => setDialog(null)} setup={setup} title={title} getFigureSvg={getFigureSvg} now={now} exporter={figureExporter} />
+      </OpenedOnce>
+      <OpenedOnce open={dialog === 'methods'}>
+        <MethodsNoteModal open={dialog === 'methods'} onClose={() => setDialog(null)} setup={setup} bindingMap={binding} />
+      </OpenedOnce>
+      <OpenedOnce open={notice !== null}>
+        <Modal open={notice !== null} title="Export" onCancel={() => setNotice(null)} footer={notice?.kind === 'error' ? <Button onClick={() => setNotice(null)}>Close</Button> : null} closable={notice?.kind === 'error'}>
+          {notice?.kind === 'error' && <Alert type="error" showIcon role="alert" title={notice.text} />}
+          {notice?.kind === 'progress' && (
+            <>
+              <div>{notice.text}</div>
+              <Progress percent={notice.percent ?? 0} />
+            </>
+          )}
+        </Modal>
+      </OpenedOnce>
     </>
   );
 }

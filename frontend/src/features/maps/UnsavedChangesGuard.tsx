@@ -1,5 +1,6 @@
 import { useContext, useEffect } from 'react';
 import { Modal } from 'antd';
+import { OpenedOnce } from '../../components/OpenedOnce';
 import { UNSAFE_DataRouterContext, useBlocker, type BlockerFunction } from 'react-router-dom';
 
 /** The browser's own "Leave site?" question on reload, close and typed URLs while `when` holds. */
@@ -18,17 +19,19 @@ function useBeforeUnload(when: boolean) {
 function RouterBlocker({ shouldBlock, message }: { shouldBlock: BlockerFunction; message: string }) {
   const blocker = useBlocker(shouldBlock);
   return (
-    <Modal
-      open={blocker.state === 'blocked'}
-      title="Leave without saving?"
-      okText="Leave"
-      okButtonProps={{ danger: true }}
-      cancelText="Stay"
-      onOk={() => blocker.proceed?.()}
-      onCancel={() => blocker.reset?.()}
-    >
-      {message}
-    </Modal>
+    <OpenedOnce open={blocker.state === 'blocked'}>
+      <Modal
+        open={blocker.state === 'blocked'}
+        title="Leave without saving?"
+        okText="Leave"
+        okButtonProps={{ danger: true }}
+        cancelText="Stay"
+        onOk={() => blocker.proceed?.()}
+        onCancel={() => blocker.reset?.()}
+      >
+        {message}
+      </Modal>
+    </OpenedOnce>
   );
 }
 

@@ -6,6 +6,7 @@ import type { PinGeometry, PinView } from '@fieldbound/shared';
 import { useLiveMap, type LiveStatus } from '../../api/live';
 import { pinConflictOf, pinKeys, useCreatePin, usePins, useUpdatePin } from '../../api/pins';
 import { applyServerErrors } from '../../components/forms';
+import { OpenedOnce } from '../../components/OpenedOnce';
 import { palette } from '../../theme/palette';
 import { CreatePinModal } from './CreatePinModal';
 import { describeRegion } from './pinGeometry';
@@ -132,72 +133,76 @@ export function useMemberPins({ mapId, mapVersion, canEdit }: { mapId: string; m
           }
         />
       )}
-      <Drawer
-        title={
-          <Space>
-            <PushpinOutlined style={{ color: palette.pin }} /> Pins
-          </Space>
-        }
-        placement="right"
-        size={440}
-        open={open}
-        mask={false}
-        onClose={() => {
-          setListOpen(false);
-          select(null);
-        }}
-      >
-        {selectedId ? (
-          <>
-            <Button type="link" icon={<ArrowLeftOutlined />} style={{ padding: 0, marginBottom: 8 }} onClick={() => {
-              setListOpen(true);
-              select(null);
-            }}>
-              All pins
-            </Button>
-            <PinThread
-              key={selectedId}
-              mapId={mapId}
-              pinId={selectedId}
-              canEdit={canEdit}
-              regionText={selectedRegion}
-              notice={notices.get(selectedId)}
-              onAcknowledge={() => acknowledge(selectedId)}
-              onJump={() => jumpTo(selectedId)}
-              onDeleted={() => select(null)}
-              categories={categories}
-            />
-          </>
-        ) : (
-          <>
-            {canEdit && (
-              <Typography.Paragraph type="secondary" style={{ fontSize: 12.5 }}>
-                To add a pin, pick a tool at the top left of the map: a point, a rectangle or a polygon.
-              </Typography.Paragraph>
-            )}
-            {pins.isError && <Alert type="error" title={`The pins could not be loaded: ${pins.error.message}`} />}
-            <PinsTable rows={rows} onOpen={select} onJump={jumpTo} />
-          </>
-        )}
-      </Drawer>
-      <CreatePinModal
-        geometry={creating}
-        categories={categories}
-        saving={create.isPending}
-        onCancel={() => setCreating(null)}
-        onSubmit={(request, form) =>
-          create.mutate(request, {
-            onSuccess: (pin) => {
-              setCreating(null);
-              select(pin.id);
-            },
-            onError: (error) => {
-              const text = applyServerErrors(form, error, ['title', 'body', 'category']);
-              if (text) message.error(`The pin was not added: ${text}`);
-            },
-          })
-        }
-      />
+      <OpenedOnce open={open}>
+        <Drawer
+          title={
+            <Space>
+              <PushpinOutlined style={{ color: palette.pin }} /> Pins
+            </Space>
+          }
+          placement="right"
+          size={440}
+          open={open}
+          mask={false}
+          onClose={() => {
+            setListOpen(false);
+            select(null);
+          }}
+        >
+          {selectedId ? (
+            <>
+              <Button type="link" icon={<ArrowLeftOutlined />} style={{ padding: 0, marginBottom: 8 }} onClick={() => {
+                setListOpen(true);
+                select(null);
+              }}>
+                All pins
+              </Button>
+              <PinThread
+                key={selectedId}
+                mapId={mapId}
+                pinId={selectedId}
+                canEdit={canEdit}
+                regionText={selectedRegion}
+                notice={notices.get(selectedId)}
+                onAcknowledge={() => acknowledge(selectedId)}
+                onJump={() => jumpTo(selectedId)}
+                onDeleted={() => select(null)}
+                categories={categories}
+              />
+            </>
+          ) : (
+            <>
+              {canEdit && (
+                <Typography.Paragraph type="secondary" style={{ fontSize: 12.5 }}>
+                  To add a pin, pick a tool at the top left of the map: a point, a rectangle or a polygon.
+                </Typography.Paragraph>
+              )}
+              {pins.isError && <Alert type="error" title={`The pins could not be loaded: ${pins.error.message}`} />}
+              <PinsTable rows={rows} onOpen={select} onJump={jumpTo} />
+            </>
+          )}
+        </Drawer>
+      </OpenedOnce>
+      <OpenedOnce open={creating !== null}>
+        <CreatePinModal
+          geometry={creating}
+          categories={categories}
+          saving={create.isPending}
+          onCancel={() => setCreating(null)}
+          onSubmit={(request, form) =>
+            create.mutate(request, {
+              onSuccess: (pin) => {
+                setCreating(null);
+                select(pin.id);
+              },
+              onError: (error) => {
+                const text = applyServerErrors(form, error, ['title', 'body', 'category']);
+                if (text) message.error(`The pin was not added: ${text}`);
+              },
+            })
+          }
+        />
+      </OpenedOnce>
     </>
   );
 
