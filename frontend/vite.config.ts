@@ -3,11 +3,12 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import { antdStaticStyles } from './build/antdStaticStyles';
+import { fontPreload } from './build/fontPreload';
 
 const sharedSource = fileURLToPath(new URL('../shared/src/index.ts', import.meta.url));
 
 export default defineConfig({
-  plugins: [react(), antdStaticStyles()],
+  plugins: [react(), antdStaticStyles(), fontPreload()],
   resolve: {
     // The engine is bundled from source, so the browser runs exactly the code the tests check.
     alias: { '@fieldbound/shared': sharedSource },

@@ -1,4 +1,4 @@
-import { memo, useCallback, useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { memo, useCallback, useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type CSSProperties, type ReactNode } from 'react';
 import { select, zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3';
 import type { BindingMapResult, MapSetup, PhaseMapResult } from '@fieldbound/shared';
 import { palette } from '../../theme/palette';
@@ -53,6 +53,13 @@ export interface MapViewProps {
 }
 
 const MARGIN = { top: 14, right: 18, bottom: 46, left: 70 };
+
+/**
+ * The map's box takes its size from the page (flex), never from what it draws, so it is a containment boundary
+ * (`contain: strict`): drawing a new picture lays out and paints the map alone, not the setup form and the rest of
+ * the page around it.
+ */
+const MAP_VIEW_STYLE: CSSProperties = { position: 'relative', flex: 1, minHeight: 0, minWidth: 0, overflow: 'hidden', background: '#fff', contain: 'strict' };
 /** Time after the last wheel or drag step before the window is recomputed at full resolution. */
 export const ZOOM_SETTLE_MS = 350;
 
@@ -189,7 +196,7 @@ export const MapView = memo(function MapView({ setup, view, onViewChange, layers
   const cursorText = cursorPoint ? readout(cursorPoint.alpha, cursorPoint.tesla) : null;
 
   return (
-    <div ref={containerRef} className="map-view" style={{ position: 'relative', flex: 1, minHeight: 0, minWidth: 0, overflow: 'hidden', background: '#fff' }}>
+    <div ref={containerRef} className="map-view" style={MAP_VIEW_STYLE}>
       {width > 0 && (
         // The figure: one self-contained <svg> (layers, bands, species, probe, axes) that exports can serialise as is.
         <svg ref={svgRef} width={width} height={height} role="img" aria-label="Map of polarizability against magnetic field" style={{ position: 'absolute', left: 0, top: 0, display: 'block', fontFamily: 'inherit' }}>

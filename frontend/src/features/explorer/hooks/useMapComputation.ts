@@ -133,14 +133,14 @@ function mark(label: string | undefined, what: string) {
   if (label) performance.mark(`fieldbound:${label}:${what}`);
 }
 
-/** Longest wait for a frame before running anyway (a page in a background tab gets no frames). */
-const FRAME_WAIT_MS = 100;
+/** Longest wait for the frames before running anyway (a page in a background tab gets no frames). */
+const FRAME_WAIT_MS = 250;
 
 /**
- * Runs `run` in a task of its own after the next frame is rendered (or after `FRAME_WAIT_MS` when no frame comes);
- * returns a function that cancels it.
+ * Runs `run` in a task of its own after the next two frames are rendered (or after `FRAME_WAIT_MS` when they do not
+ * come); returns a function that cancels it.
  */
-export function afterNextFrame(run: () => void): () => void {
+export function afterTwoFrames(run: () => void): () => void {
   let done = false;
   let frame: number | null = null;
   let afterFrame: ReturnType<typeof setTimeout> | null = null;
@@ -157,7 +157,13 @@ export function afterNextFrame(run: () => void): () => void {
     clearTimeout(fallback);
   };
   const fallback = setTimeout(go, FRAME_WAIT_MS);
-  if (typeof requestAnimationFrame === 'function') frame = requestAnimationFrame(() => (afterFrame = setTimeout(go, 0)));
+  // Two frames: the first lays out and paints what the render committed; a map view that learns its size in that
+  // frame (ResizeObserver) draws itself at that size, and the second frame lays that out and paints it.
+  if (typeof requestAnimationFrame === 'function') {
+    frame = requestAnimationFrame(() => {
+      frame = requestAnimationFrame(() => (afterFrame = setTimeout(go, 0)));
+    });
+  }
   return cancel;
 }
 
@@ -201,10 +207,10 @@ export function useMapComputation(pool: EnginePool | null, setup: MapSetup | nul
     controller.current = abort;
     const requested = performance.now();
     mark(label, 'requested');
-    // The work goes to the workers after the next frame: the render that asked for the map (on a first visit, the whole
-    // explorer mounting) and the frame that shows it are done before the computation starts, so none of their
+    // The work goes to the workers after the next two frames: the render that asked for the map (on a first visit, the
+    // whole explorer mounting) and the frames that show it are done before the computation starts, so none of their
     // main-thread work falls inside the computation. Times still run from the request.
-    const cancelStart = afterNextFrame(() => {
+    const cancelStart = afterTwoFrames(() => {
       if (abort.signal.aborted) return;
       mark(label, 'start');
       let firstPictureMs: number | null = null;
