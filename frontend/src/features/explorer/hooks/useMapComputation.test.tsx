@@ -1,9 +1,9 @@
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { defaultSetup, type MapSetup } from '@fieldbound/shared';
 import { EnginePool } from '../../../workers/enginePool';
 import { FakeEngineWorker, fakeEngineApi } from '../../../workers/fakeWorkers';
-import { createMapCaches, useMapComputation } from './useMapComputation';
+import { afterTwoFrames, createMapCaches, useMapComputation } from './useMapComputation';
 
 let pool: EnginePool | null = null;
 afterEach(() => pool?.dispose());
@@ -83,5 +83,65 @@ describe('useMapComputation status', () => {
     expect(result.current.state.status).toBe('computing');
     await waitFor(() => expect(result.current.state.status).toBe('done'));
     expect(result.current.state.result?.nField).toBe(8);
+  });
+});
+
+describe('afterTwoFrames (when the computation is handed to the workers)', () => {
+  /** A controllable frame clock in place of the browser's. */
+  function frames() {
+    const queue = new Map<number, FrameRequestCallback>();
+    let next = 1;
+    vi.stubGlobal('requestAnimationFrame', (cb: FrameRequestCallback) => {
+      queue.set(next, cb);
+      return next++;
+    });
+    vi.stubGlobal('cancelAnimationFrame', (id: number) => queue.delete(id));
+    return {
+      tick() {
+        const due = [...queue.values()];
+        queue.clear();
+        for (const cb of due) cb(performance.now());
+      },
+    };
+  }
+  afterEach(() => {
+    vi.unstubAllGlobals();
+    vi.useRealTimers();
+  });
+
+  it('runs once, in a task after the second frame, not after the first', () => {
+    vi.useFakeTimers();
+    const clock = frames();
+    const run = vi.fn();
+    afterTwoFrames(run);
+    clock.tick();
+    vi.advanceTimersByTime(1);
+    expect(run).not.toHaveBeenCalled();
+    clock.tick();
+    expect(run).not.toHaveBeenCalled(); // not inside the frame: in a task of its own
+    vi.advanceTimersByTime(1);
+    expect(run).toHaveBeenCalledTimes(1);
+    vi.advanceTimersByTime(1000);
+    expect(run).toHaveBeenCalledTimes(1);
+  });
+
+  it('runs after a bounded wait when no frames come (a page in a background tab), and never after cancel', () => {
+    vi.useFakeTimers();
+    frames(); // frames requested, never rendered
+    const run = vi.fn();
+    afterTwoFrames(run);
+    vi.advanceTimersByTime(249);
+    expect(run).not.toHaveBeenCalled();
+    vi.advanceTimersByTime(1);
+    expect(run).toHaveBeenCalledTimes(1);
+
+    const clock = frames();
+    const cancelled = vi.fn();
+    const cancel = afterTwoFrames(cancelled);
+    clock.tick();
+    cancel();
+    clock.tick();
+    vi.advanceTimersByTime(1000);
+    expect(cancelled).not.toHaveBeenCalled();
   });
 });
