@@ -109,6 +109,13 @@ test('the explorer draws the 4 K demo map, probes a point with the engine’s nu
   const drawer = (await page.getByRole('dialog', { name: 'Probe' }).boundingBox())!;
   const uncovered = Math.min(box.width, drawer.x - box.x);
   expect(uncovered, 'the probe leaves part of the map in view').toBeGreaterThan(100);
+  // The map is redrawn beside the open probe (its plot ends left of the drawer), so the probed point stays in view.
+  await expect.poll(async () => {
+    const plot = (await mapOverlay(page).boundingBox())!;
+    return plot.x + plot.width <= drawer.x + 1;
+  }).toBe(true);
+  const marker = (await page.locator('.map-view .probe-marker').boundingBox())!;
+  expect(marker.x + marker.width, 'the probed point is left of the probe').toBeLessThanOrEqual(drawer.x);
   await mapOverlay(page).hover({ position: { x: uncovered / 2, y: box.height / 2 } });
   for (let k = 0; k < 3; k++) await page.mouse.wheel(0, -240);
   await expect(page).toHaveURL(/[?&]alpha=[^&]+/, { timeout: 30_000 });

@@ -14,6 +14,7 @@ import { ComputeStatus } from './ComputeStatus';
 import { MapLegend } from './MapLegend';
 import { MapView, gridAxesOf, type MapLayerInput, type SpeciesMarker } from './MapView';
 import { ProbeDrawer } from './ProbeDrawer';
+import { useElementSize } from './useElementSize';
 import { OpenedOnce } from '../../components/OpenedOnce';
 import { SetupPanel } from './SetupPanel';
 import { createMapCaches, motionKey, useMapComputation } from './hooks/useMapComputation';
@@ -68,6 +69,11 @@ export interface ExplorerComputed {
 }
 
 const NO_SPECIES: readonly SpeciesMarker[] = [];
+
+/** Narrowest map (px) worth keeping beside the open probe; with less room the probe lies over the map. */
+const MIN_MAP_BESIDE_PROBE = 320;
+/** Below this width of the map column (px) the legend starts folded, so it does not hide most of the map. */
+const NARROW_MAP_PX = 600;
 
 /** A shown quantity as a string, to compare by value. */
 function shownKeyOf(shown: MapSetup['display']['shown']): string {
@@ -256,6 +262,12 @@ export const ExplorerPage = memo(function ExplorerPage({
 
   const onProbe = useCallback((p: ProbePoint) => setProbe(roundProbe(p)), []);
   const closeProbe = useCallback(() => setProbe(null), []);
+  // The open probe lies over the right of the explorer: the map column gives it that width (the map is redrawn beside
+  // it, so the probed point stays in view) unless that would leave the map narrower than MIN_MAP_BESIDE_PROBE.
+  const [probeCover, setProbeCover] = useState(0);
+  const mainRef = useRef<HTMLElement>(null);
+  const { width: mainWidth } = useElementSize(mainRef);
+  const mapMarginRight = probe !== null && probeCover > 0 && mainWidth - probeCover >= MIN_MAP_BESIDE_PROBE ? probeCover : 0;
   // Offered while the draft is valid; stable while it stays valid (it saves the newest valid setup), so neither
   // progress renders of the page nor keystrokes re-render the setup's buttons.
   const hasValidSetup = check.valid !== null;
@@ -301,11 +313,11 @@ export const ExplorerPage = memo(function ExplorerPage({
           <SetupPanel draft={draft} issues={check.issues} onChange={onDraftChange} onCompute={onCompute} needsCompute={check.needsCompute} onSave={onSaveValid} saveLabel={saveLabel} speciesOptions={speciesOptions.length ? speciesOptions : undefined} />
         </aside>
       )}
-      <main style={{ flex: 1, minWidth: 0, display: 'flex', flexDirection: 'column' }}>
+      <main ref={mainRef} style={{ flex: 1, minWidth: 0, display: 'flex', flexDirection: 'column', paddingRight: mapMarginRight }}>
         <ExplorerToolbar onShowSetup={!panelOpen && !readOnly ? showPanel : undefined} shown={shown} mMax={applied.orbitals.mMax} onShownChange={setShown} zoomed={zoomed !== null} onShowWhole={showWholeMap} status={statusText} />
         <div style={{ position: 'relative', flex: 1, minHeight: 0, display: 'flex' }}>
           <MapView setup={applied} view={view} onViewChange={setView} layers={layers} readout={readout} probe={probe} onProbe={onProbe} species={species} overlay={mapOverlay} />
-          <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={motionApplied} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} />
+          <MapLegend shown={shown} maxCount={maxCount} energyUnitLabel={ENERGY_UNIT_LABEL[applied.display.energyUnit]} motionApplied={motionApplied} hasSpecies={species.length > 0} hasFieldBands={applied.fieldBands.length > 0} narrow={mainWidth > 0 && mainWidth - mapMarginRight < NARROW_MAP_PX} />
           <div style={{ position: 'absolute', top: 12, left: '50%', transform: 'translateX(-50%)', display: 'flex', flexDirection: 'column', gap: 8, alignItems: 'center' }}>
             <ComputeStatus state={activeComp.state} progress={activeComp.progress} onCancel={activeComp.cancel} onRetry={activeComp.retry} what={activeComp === base ? 'the map' : 'the zoomed window'} />
             {geometryError && <ComputeStatus state={{ ...base.state, status: 'error', error: geometryError }} onCancel={() => {}} onRetry={base.retry} what="the contours" />}
@@ -319,7 +331,7 @@ export const ExplorerPage = memo(function ExplorerPage({
       </main>
       {/* Inside the explorer's box (not over the host page's header, whose Save and Export stay reachable). */}
       <OpenedOnce open={probe !== null}>
-        <ProbeDrawer point={probe} setup={applied} pool={workers?.probe ?? null} onClose={closeProbe} />
+        <ProbeDrawer point={probe} setup={applied} pool={workers?.probe ?? null} onClose={closeProbe} onCoverChange={setProbeCover} />
       </OpenedOnce>
     </div>
   );

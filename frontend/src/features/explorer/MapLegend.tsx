@@ -1,5 +1,6 @@
 import { memo, useRef, useState, type PointerEvent as ReactPointerEvent } from 'react';
-import { Typography } from 'antd';
+import { Button, Typography } from 'antd';
+import { DownOutlined, UpOutlined } from '@ant-design/icons';
 import { palette } from '../../theme/palette';
 import { countFill } from '../map-render/projectGeometry';
 import type { ShownQuantity } from '../map-render/regionField';
@@ -12,6 +13,8 @@ export interface MapLegendProps {
   motionApplied: boolean;
   hasSpecies: boolean;
   hasFieldBands: boolean;
+  /** The map is narrow: the legend starts folded to its title (the reader can unfold it). */
+  narrow?: boolean;
 }
 
 const HATCH = `repeating-linear-gradient(45deg, rgba(43,45,66,0.55) 0 1.2px, transparent 1.2px 6px), ${palette.resonance}`;
@@ -21,8 +24,12 @@ function Swatch({ background, border }: { background: string; border?: boolean }
 }
 
 /** The map's key, floating over a corner; drag its title bar to move it out of the way. */
-export const MapLegend = memo(function MapLegend({ shown, maxCount, energyUnitLabel, motionApplied, hasSpecies, hasFieldBands }: MapLegendProps) {
+export const MapLegend = memo(function MapLegend({ shown, maxCount, energyUnitLabel, motionApplied, hasSpecies, hasFieldBands, narrow = false }: MapLegendProps) {
   const [pos, setPos] = useState({ right: 16, bottom: 60 });
+  // Folded to its title while the map is narrow (e.g. beside the open probe) unless the reader unfolds it; once the
+  // reader folds or unfolds it, that choice holds.
+  const [foldedByReader, setFoldedByReader] = useState<boolean | null>(null);
+  const folded = foldedByReader ?? narrow;
   const drag = useRef<{ x: number; y: number; right: number; bottom: number } | null>(null);
   const onDown = (e: ReactPointerEvent) => {
     drag.current = { x: e.clientX, y: e.clientY, ...pos };
@@ -46,16 +53,25 @@ export const MapLegend = memo(function MapLegend({ shown, maxCount, energyUnitLa
         borderRadius: 6,
         boxShadow: '0 2px 8px rgba(43,45,66,0.12)',
         fontSize: 12,
-        minWidth: 190,
+        minWidth: folded ? undefined : 190,
         userSelect: 'none',
       }}
     >
-      <div onPointerDown={onDown} onPointerMove={onMove} onPointerUp={() => (drag.current = null)} style={{ cursor: 'move', padding: '4px 10px', borderBottom: `1px solid ${palette.unbound}` }}>
-        <Typography.Text strong style={{ fontSize: 12 }}>
+      <div onPointerDown={onDown} onPointerMove={onMove} onPointerUp={() => (drag.current = null)} style={{ cursor: 'move', padding: '4px 4px 4px 10px', borderBottom: folded ? undefined : `1px solid ${palette.unbound}`, display: 'flex', alignItems: 'center', gap: 6 }}>
+        <Typography.Text strong style={{ fontSize: 12, flex: 1 }}>
           {shown.kind === 'orbital' ? `Orbital m = ${shown.m}` : motionApplied ? 'Survivors: states that last the observation time' : 'Survivors: bound states'}
         </Typography.Text>
+        <Button
+          type="text"
+          size="small"
+          aria-label={folded ? 'Unfold the legend' : 'Fold the legend'}
+          aria-expanded={!folded}
+          icon={folded ? <UpOutlined /> : <DownOutlined />}
+          onPointerDown={(e) => e.stopPropagation()}
+          onClick={() => setFoldedByReader(!folded)}
+        />
       </div>
-      <div style={{ padding: '6px 10px', lineHeight: '20px' }}>
+      <div hidden={folded} style={{ padding: '6px 10px', lineHeight: '20px' }}>
         {shown.kind === 'orbital' ? (
           <>
             <div>

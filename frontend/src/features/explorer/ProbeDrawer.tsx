@@ -1,4 +1,4 @@
-import { memo, useCallback, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button, Drawer, Tooltip } from 'antd';
 import { ColumnWidthOutlined } from '@ant-design/icons';
 import type { MapSetup } from '@fieldbound/shared';
@@ -25,6 +25,8 @@ export interface ProbeDrawerProps {
   setup: MapSetup;
   pool: EnginePool | null;
   onClose: () => void;
+  /** The drawer's width in pixels while it is open (0 when closed), so the explorer can keep the map beside it. */
+  onCoverChange?: (px: number) => void;
 }
 
 /**
@@ -32,9 +34,29 @@ export interface ProbeDrawerProps {
  * reachable). Its edge can be dragged; a header button switches between the opening width and a wide view.
  * Memoised: typing in the setup re-renders the explorer, not the drawer.
  */
-export const ProbeDrawer = memo(function ProbeDrawer({ point, setup, pool, onClose }: ProbeDrawerProps) {
+export const ProbeDrawer = memo(function ProbeDrawer({ point, setup, pool, onClose, onCoverChange }: ProbeDrawerProps) {
   const [width, setWidth] = useState<ProbeWidth>('opening');
   const panel = useRef<HTMLDivElement>(null);
+  // Report the open drawer's width as it opens, is dragged or switches views (a ResizeObserver: read after layout).
+  // The panel element arrives through a callback ref: the drawer mounts it after its own first render.
+  const [panelEl, setPanelEl] = useState<HTMLDivElement | null>(null);
+  const panelRefs = useCallback((el: HTMLDivElement | null) => {
+    panel.current = el;
+    setPanelEl(el);
+  }, []);
+  const open = point !== null;
+  useEffect(() => {
+    if (!open || !panelEl || !onCoverChange) return;
+    const report = () => onCoverChange(panelEl.offsetWidth);
+    report();
+    if (typeof ResizeObserver === 'undefined') return () => onCoverChange(0);
+    const observer = new ResizeObserver(report);
+    observer.observe(panelEl);
+    return () => {
+      observer.disconnect();
+      onCoverChange(0);
+    };
+  }, [open, panelEl, onCoverChange]);
   const onResize = useCallback((next: number) => {
     // The drawer's root spans the explorer: what it leaves of the map is measured against that.
     const root = panel.current?.closest<HTMLElement>('.ant-drawer');
@@ -50,7 +72,7 @@ export const ProbeDrawer = memo(function ProbeDrawer({ point, setup, pool, onClo
       placement="right"
       size={preset ? preset.size : width}
       resizable={{ onResize }}
-      panelRef={panel}
+      panelRef={panelRefs}
       open={point !== null}
       onClose={onClose}
       mask={false}
