@@ -6,15 +6,11 @@
 //  - the ratio of the browser's full map to the engine alone in Node for the same setup.
 // Writes a table to stdout and the figures into docs/benchmarks.md. Not part of `npm test` (speed is measured, never
 // asserted in a test). Run: `npm run bench` (root) or `npm run bench -w e2e`.
-import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { chromium, type Page } from '@playwright/test';
-
-const here = path.dirname(fileURLToPath(import.meta.url));
-const repoRoot = path.resolve(here, '..', '..');
+import { benchSetup, createBenchMap, repoRoot, startBenchServers } from './benchApp';
 const PORT = Number(process.env.FIELDBOUND_BENCH_PORT ?? 3171);
 const DB = process.env.FIELDBOUND_BENCH_DB ?? 'fieldbound_explorer_bench_test';
 const BASE = `http://127.0.0.1:${PORT}`;
@@ -51,34 +47,6 @@ function log(text: string) {
   process.stdout.write(`[explorer-bench] ${text}\n`);
 }
 
-async function waitFor(url: string, timeoutMs: number) {
-  const until = Date.now() + timeoutMs;
-  while (Date.now() < until) {
-    try {
-      const r = await fetch(url);
-      if (r.ok) return;
-    } catch {
-      // not up yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
-}
-
-/** The benchmark's setup: 256 × 256, Landau orbitals m = 0…7, thermal ions at 4 K (²⁴Mg⁻), survivors shown. */
-async function benchSetup() {
-  const { defaultSetup } = await import('../../shared/dist/index.js');
-  const base = defaultSetup();
-  return {
-    ...base,
-    grid: { nAlpha: 256, nField: 256 },
-    orbitals: { mMax: 7 },
-    motion: { kind: 'temperature' as const, kelvin: 4 },
-    ion: { massNumber: 24 },
-    display: { ...base.display, shown: { kind: 'survivors' as const } },
-  };
-}
-
 /** The same work single-threaded in Node with the built engine: model, every row, moving-ion classes. */
 async function engineInNode(setup: Awaited<ReturnType<typeof benchSetup>>) {
   const engine = await import('../../shared/dist/index.js');
@@ -98,36 +66,13 @@ async function engineInNode(setup: Awaited<ReturnType<typeof benchSetup>>) {
   return { full, coarse };
 }
 
-async function startServer(): Promise<{ server: ChildProcess; stopDatabase: () => void }> {
+async function startServer(): Promise<{ stop: () => void }> {
   // The shared build is rebuilt when sources are newer (FIELDBOUND_BENCH_NO_BUILD=1 measures the build as it is).
   if (process.env.FIELDBOUND_BENCH_NO_BUILD !== '1') {
     const build = await import('../../scripts/lib/build.mjs');
     build.buildIfStale();
   }
-  const { LocalCluster } = await import('../../scripts/lib/postgres.mjs');
-  const cluster = new LocalCluster();
-  const started = await cluster.start();
-  cluster.ensureDatabase(DB, { fresh: true });
-  const env = { ...process.env, ...cluster.envFor(DB), FIELDBOUND_PORT: String(PORT) };
-  const { runOrThrow } = await import('../../scripts/lib/run.mjs');
-  runOrThrow(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'database', 'db-cli.js'), 'migrate'], { env, stdio: 'ignore' });
-  const server = spawn(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'main.js')], { env, stdio: ['ignore', 'ignore', 'inherit'] });
-  await waitFor(`${BASE}/api/health`, 60_000);
-  return { server, stopDatabase: () => (started ? cluster.stop() : undefined) };
-}
-
-/** Registers an editor with a team (the browser context keeps the refresh cookie) and stores the bench map. */
-async function createMap(page: Page, setup: unknown): Promise<string> {
-  const id = Math.random().toString(36).slice(2, 10);
-  const reg = await page.request.post(`${BASE}/api/auth/register`, { data: { email: `bench-${id}@example.test`, password: 'bench of the explorer', displayName: 'Bench' } });
-  if (reg.status() !== 201) throw new Error(`register: ${reg.status()} ${await reg.text()}`);
-  const { accessToken } = (await reg.json()) as { accessToken: string };
-  const headers = { Authorization: `Bearer ${accessToken}` };
-  const team = await page.request.post(`${BASE}/api/teams`, { data: { name: `Bench ${id}` }, headers });
-  const { id: teamId } = (await team.json()) as { id: string };
-  const map = await page.request.post(`${BASE}/api/teams/${teamId}/maps`, { data: { title: 'Explorer benchmark', setup }, headers });
-  if (map.status() !== 201) throw new Error(`create map: ${map.status()} ${await map.text()}`);
-  return ((await map.json()) as { id: string }).id;
+  return startBenchServers(DB, [{ port: PORT, staticDir: process.env.FIELDBOUND_STATIC_DIR }]);
 }
 
 /** Installed before the app loads: collects long tasks and counts animation frames on demand. */
@@ -234,7 +179,7 @@ async function main() {
   const setup = await benchSetup();
   const load0 = os.loadavg();
   log(`load average before: ${load0.map((x) => x.toFixed(1)).join(' / ')}`);
-  const { server, stopDatabase } = await startServer();
+  const { stop } = await startServer();
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' });
   const runs: Marks[] = [];
   let pan: PanFigures | null = null;
@@ -245,7 +190,7 @@ async function main() {
     // tsx keeps function names with a `__name` helper that does not exist in the page: give the page one.
     await page.addInitScript({ content: 'window.__name = (f) => f;' });
     await page.addInitScript(PAGE_PROBES);
-    const mapId = await createMap(page, setup);
+    const mapId = await createBenchMap(page.request, BASE, setup, 'Explorer benchmark');
     userAgent = await page.evaluate(() => navigator.userAgent);
     // Cold: first visit, workers and the engine bundle loaded from scratch.
     await page.goto(`${BASE}/maps/${mapId}`);
@@ -266,8 +211,7 @@ async function main() {
     await context.close();
   } finally {
     await browser.close();
-    server.kill('SIGTERM');
-    stopDatabase();
+    stop();
   }
   const node = await engineInNode(setup);
   const load1 = os.loadavg();

@@ -5,13 +5,8 @@
 // A developer's tool for changes that aim at the first visit (not part of `npm test` or `npm run bench`).
 // Run: `cd e2e && FIELDBOUND_COMPARE_DIRS=/tmp/a,/tmp/b npx tsx bench/first-visit-compare.ts` with client builds in
 // those directories (e.g. `cd frontend && npx vite build --outDir /tmp/a`); FIELDBOUND_COMPARE_VISITS (default 6).
-import { spawn, type ChildProcess } from 'node:child_process';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { chromium, type Browser } from '@playwright/test';
-
-const here = path.dirname(fileURLToPath(import.meta.url));
-const repoRoot = path.resolve(here, '..', '..');
+import { benchSetup, createBenchMap, startBenchServers } from './benchApp';
 const FIRST_PORT = Number(process.env.FIELDBOUND_BENCH_PORT ?? 3180);
 const DB = 'fieldbound_first_visit_compare_test';
 const VISITS = Number(process.env.FIELDBOUND_COMPARE_VISITS ?? 6);
@@ -26,32 +21,13 @@ interface Visit {
   computingTasks: number;
 }
 
-async function benchSetup() {
-  const { defaultSetup } = await import('../../shared/dist/index.js');
-  const base = defaultSetup();
-  return {
-    ...base,
-    grid: { nAlpha: 256, nField: 256 },
-    orbitals: { mMax: 7 },
-    motion: { kind: 'temperature' as const, kelvin: 4 },
-    ion: { massNumber: 24 },
-    display: { ...base.display, shown: { kind: 'survivors' as const } },
-  };
-}
-
 /** A user with a team and the bench map on `base`; returns the map's address and the refresh cookie's state. */
 async function prepare(browser: Browser, base: string) {
   const context = await browser.newContext();
-  const id = Math.random().toString(36).slice(2, 10);
-  const reg = await context.request.post(`${base}/api/auth/register`, { data: { email: `compare-${id}@example.test`, password: 'compare first visits', displayName: 'Compare' } });
-  if (reg.status() !== 201) throw new Error(`register: ${reg.status()} ${await reg.text()}`);
-  const { accessToken } = (await reg.json()) as { accessToken: string };
-  const headers = { Authorization: `Bearer ${accessToken}` };
-  const team = (await (await context.request.post(`${base}/api/teams`, { data: { name: `Compare ${id}` }, headers })).json()) as { id: string };
-  const map = (await (await context.request.post(`${base}/api/teams/${team.id}/maps`, { data: { title: 'First visit comparison', setup: await benchSetup() }, headers })).json()) as { id: string };
+  const mapId = await createBenchMap(context.request, base, await benchSetup(), 'First visit comparison');
   const storage = await context.storageState();
   await context.close();
-  return { url: `${base}/maps/${map.id}`, storage };
+  return { url: `${base}/maps/${mapId}`, storage };
 }
 
 async function visit(browser: Browser, target: Awaited<ReturnType<typeof prepare>>): Promise<Visit> {
@@ -90,24 +66,9 @@ async function visit(browser: Browser, target: Awaited<ReturnType<typeof prepare
 async function main() {
   const dirs = (process.env.FIELDBOUND_COMPARE_DIRS ?? '').split(',').filter(Boolean);
   if (dirs.length < 1) throw new Error('Set FIELDBOUND_COMPARE_DIRS to one or more client build directories, comma-separated.');
-  const { LocalCluster } = await import('../../scripts/lib/postgres.mjs');
-  const { runOrThrow } = await import('../../scripts/lib/run.mjs');
-  const cluster = new LocalCluster();
-  const started = await cluster.start();
-  cluster.ensureDatabase(DB, { fresh: true });
-  const dbEnv = cluster.envFor(DB);
-  runOrThrow(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'database', 'db-cli.js'), 'migrate'], { env: { ...process.env, ...dbEnv }, stdio: 'ignore' });
-  const servers: ChildProcess[] = dirs.map((dir, i) =>
-    spawn(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'main.js')], {
-      env: { ...process.env, ...dbEnv, FIELDBOUND_PORT: String(FIRST_PORT + i), FIELDBOUND_STATIC_DIR: dir },
-      stdio: ['ignore', 'ignore', 'inherit'],
-    }),
-  );
+  const { stop } = await startBenchServers(DB, dirs.map((dir, i) => ({ port: FIRST_PORT + i, staticDir: dir })));
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' });
   try {
-    for (let i = 0; i < dirs.length; i++) {
-      for (let k = 0; k < 240 && !(await fetch(`http://127.0.0.1:${FIRST_PORT + i}/api/health`).then((r) => r.ok, () => false)); k++) await new Promise((r) => setTimeout(r, 250));
-    }
     const targets = await Promise.all(dirs.map((_, i) => prepare(browser, `http://127.0.0.1:${FIRST_PORT + i}`)));
     const results: Visit[][] = dirs.map(() => []);
     for (let v = 0; v < VISITS; v++) {
@@ -125,8 +86,7 @@ async function main() {
     });
   } finally {
     await browser.close();
-    for (const s of servers) s.kill('SIGTERM');
-    if (started) cluster.stop();
+    stop();
   }
 }
 

@@ -5,14 +5,9 @@
 // Run (after `npm run build`): `cd e2e && npx tsx bench/first-visit-profile.ts`. For readable function names build an
 // unminified client (`cd frontend && npx vite build --minify false --outDir /tmp/unmin`) and set
 // FIELDBOUND_STATIC_DIR=/tmp/unmin. FIELDBOUND_PROFILE_OUT=<file.cpuprofile> keeps the raw profile.
-import { spawn } from 'node:child_process';
 import fs from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { chromium } from '@playwright/test';
-
-const here = path.dirname(fileURLToPath(import.meta.url));
-const repoRoot = path.resolve(here, '..', '..');
+import { benchSetup, createBenchMap, startBenchServers } from './benchApp';
 const PORT = Number(process.env.FIELDBOUND_BENCH_PORT ?? 3172);
 const DB = 'fieldbound_first_visit_profile_test';
 const BASE = `http://127.0.0.1:${PORT}`;
@@ -30,49 +25,23 @@ interface Profile {
 }
 
 async function main() {
-  const { LocalCluster } = await import('../../scripts/lib/postgres.mjs');
-  const { runOrThrow } = await import('../../scripts/lib/run.mjs');
-  const cluster = new LocalCluster();
-  const started = await cluster.start();
-  cluster.ensureDatabase(DB, { fresh: true });
-  const env = { ...process.env, ...cluster.envFor(DB), FIELDBOUND_PORT: String(PORT) };
-  runOrThrow(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'database', 'db-cli.js'), 'migrate'], { env, stdio: 'ignore' });
-  const server = spawn(process.execPath, [path.join(repoRoot, 'backend', 'dist', 'main.js')], { env, stdio: ['ignore', 'ignore', 'inherit'] });
+  const { stop } = await startBenchServers(DB, [{ port: PORT, staticDir: process.env.FIELDBOUND_STATIC_DIR }]);
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' });
   try {
-    for (let i = 0; i < 240; i++) {
-      const ok = await fetch(`${BASE}/api/health`).then((r) => r.ok, () => false);
-      if (ok) break;
-      await new Promise((r) => setTimeout(r, 250));
-    }
-    const { defaultSetup } = await import('../../shared/dist/index.js');
-    const base = defaultSetup();
-    const setup = {
-      ...base,
-      grid: { nAlpha: 256, nField: 256 },
-      orbitals: { mMax: 7 },
-      motion: { kind: 'temperature' as const, kelvin: 4 },
-      ion: { massNumber: 24 },
-      display: { ...base.display, shown: { kind: 'survivors' as const } },
-    };
+    const setup = await benchSetup();
     const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
     const page = await context.newPage();
     await page.addInitScript({
       content: `window.__tasks = []; new PerformanceObserver((l) => { for (const e of l.getEntries()) window.__tasks.push({ start: e.startTime, duration: e.duration }); }).observe({ type: 'longtask', buffered: true });`,
     });
-    const id = Math.random().toString(36).slice(2, 10);
-    const reg = await page.request.post(`${BASE}/api/auth/register`, { data: { email: `profile-${id}@example.test`, password: 'profile of a first visit', displayName: 'Profile' } });
-    const { accessToken } = (await reg.json()) as { accessToken: string };
-    const headers = { Authorization: `Bearer ${accessToken}` };
-    const team = (await (await page.request.post(`${BASE}/api/teams`, { data: { name: `Profile ${id}` }, headers })).json()) as { id: string };
-    const map = (await (await page.request.post(`${BASE}/api/teams/${team.id}/maps`, { data: { title: 'First visit profile', setup }, headers })).json()) as { id: string };
+    const mapId = await createBenchMap(page.request, BASE, setup, 'First visit profile');
 
     const cdp = await context.newCDPSession(page);
     await cdp.send('Profiler.enable');
     await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
     await cdp.send('Profiler.start');
     const wallStart = Date.now();
-    await page.goto(`${BASE}/maps/${map.id}`);
+    await page.goto(`${BASE}/maps/${mapId}`);
     await page.waitForFunction(() => performance.getEntriesByName('fieldbound:map:full-drawn').length >= 1, undefined, { timeout: 120_000 });
     // An anchor for the clocks: a 40 ms busy loop with a unique name, whose page start time is known.
     const anchorAt = (await page.evaluate('(function fieldboundProfileAnchor() { const t0 = performance.now(); while (performance.now() - t0 < 40); return t0; })()')) as number;
@@ -153,8 +122,7 @@ async function main() {
     await context.close();
   } finally {
     await browser.close();
-    server.kill('SIGTERM');
-    if (started) cluster.stop();
+    stop();
   }
 }
 
