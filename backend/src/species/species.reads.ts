@@ -1,8 +1,9 @@
 import { Injectable } from '@nestjs/common';
 import { EntityManager } from '@mikro-orm/postgresql';
-import type { AlphaUnit, SpeciesEntry } from '@fieldbound/shared';
+import type { SpeciesEntry } from '@fieldbound/shared';
 import { selectRows } from '../common/sql-reads';
 import type { CatalogueSpecies } from './catalogue-species.entity';
+import type { TeamSpeciesInit } from './team-species.entity';
 import { catalogueEntry, teamEntry } from './species.views';
 
 // Columns aliased to the entities' property names, so the rows go through the same view functions as the ORM's entities.
@@ -20,18 +21,9 @@ const TEAM_COLUMNS = `
   s.mass_number as "massNumber", s.electron_affinity_ev as "electronAffinityEv", s.source,
   l.id as "listId", l.name as "listName"`;
 
-interface TeamSpeciesRow {
+/** A team species row as the entity's fields, with its id and its list. */
+interface TeamSpeciesRow extends TeamSpeciesInit {
   id: string;
-  line: number;
-  name: string;
-  polarizabilityA0: number;
-  polarizabilityUncertaintyA0: number | null;
-  enteredValue: number;
-  enteredUncertainty: number | null;
-  enteredUnit: AlphaUnit;
-  massNumber: number;
-  electronAffinityEv: number | null;
-  source: string;
   listId: string;
   listName: string;
 }
