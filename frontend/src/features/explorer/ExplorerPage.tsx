@@ -21,7 +21,7 @@ import { createMapCaches, motionKey, useMapComputation } from './hooks/useMapCom
 import { useLayerGeometry, type LayerGeometry } from './hooks/useLayerGeometry';
 import { readoutAt } from './mapReadout';
 import { changesBinding, checkDraft, validateDraft, type SetupDraft } from './setupDraft';
-import { parseViewParams, roundProbe, sameWindow, setupWindow, windowSetup, writeViewParams, type ProbePoint, type ViewWindow } from './viewState';
+import { parseViewParams, roundProbe, sameWindow, setupWindow, shownKey, windowSetup, writeViewParams, type ProbePoint, type ViewWindow } from './viewState';
 
 export interface ExplorerPageProps {
   /** The setup to open with (a saved map's); a new map starts from `defaultSetup()`. */
@@ -75,10 +75,6 @@ const MIN_MAP_BESIDE_PROBE = 320;
 /** Below this width of the map column (px) the legend starts folded, so it does not hide most of the map. */
 const NARROW_MAP_PX = 600;
 
-/** A shown quantity as a string, to compare by value. */
-function shownKeyOf(shown: MapSetup['display']['shown']): string {
-  return shown.kind === 'survivors' ? 'survivors' : `m${shown.m}`;
-}
 
 /** Applies the URL's shown orbital to a setup when it is valid there. */
 function withShown(setup: MapSetup, shown: ShownQuantity | null): MapSetup {
@@ -163,8 +159,8 @@ export const ExplorerPage = memo(function ExplorerPage({
   }, [baseStatus, basePass, baseResult, baseResultSetup, baseFullMs, basePhase, basePhaseKey, onComputed]);
 
   // Kept by value: a newly applied setup with the same shown quantity, levels and species changes nothing drawn.
-  const shownKey = shownKeyOf(applied.display.shown);
-  const shown = useMemo(() => applied.display.shown, [shownKey]);
+  const appliedShownKey = shownKey(applied.display.shown);
+  const shown = useMemo(() => applied.display.shown, [appliedShownKey]);
   const levelsKey = applied.contours.levelsKelvin.join(',');
   const levels = useMemo(() => applied.contours.levelsKelvin, [levelsKey]);
   const speciesKey = applied.species.join('\n');
@@ -206,11 +202,11 @@ export const ExplorerPage = memo(function ExplorerPage({
   // whole-map window, the saved map's own shown quantity is not added when the address has none: a link without it
   // opens the same view, and opening a map does not rewrite its address (a router navigation that re-renders the page
   // in its first task). An address that names it keeps it.
-  const openedShownKey = useRef(fromUrl.shown ? null : shownKeyOf((initialSetup ?? defaultSetup()).display.shown)).current;
+  const openedShownKey = useRef(fromUrl.shown ? null : shownKey((initialSetup ?? defaultSetup()).display.shown)).current;
   useEffect(() => {
     const next = writeViewParams(params, {
       view: sameWindow(view, setupWindow(applied)) ? null : view,
-      shown: shownKeyOf(shown) === openedShownKey ? null : shown,
+      shown: shownKey(shown) === openedShownKey ? null : shown,
       probe,
     });
     if (next.toString() !== params.toString()) setParams(next, { replace: true });
@@ -375,7 +371,7 @@ const ExplorerToolbar = memo(function ExplorerToolbar({ onShowSetup, shown, mMax
       <Select
         size="small"
         aria-label="Regions show"
-        value={shown.kind === 'survivors' ? 'survivors' : `m${shown.m}`}
+        value={shownKey(shown)}
         onChange={(v: string) => onShownChange(v === 'survivors' ? { kind: 'survivors' } : { kind: 'orbital', m: Number(v.slice(1)) })}
         options={options}
         style={{ width: 150 }}

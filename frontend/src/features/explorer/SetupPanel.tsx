@@ -10,6 +10,7 @@ import { formatScientific, parseScientific } from '../map-render/formatNumber';
 import { getIn, type SetupDraft } from './setupDraft';
 import { SetupFormStore, SetupFormStoreContext, useDraftSetter, useDraftSlice, useIssueText, useSetupFormStore } from './setupFormStore';
 import { UnitNumberInput } from './UnitNumberInput';
+import { shownKey } from './viewState';
 import { MagnetSafetyNote } from '../../components/MagnetSafetyNote';
 
 export interface SetupPanelProps {
@@ -236,7 +237,7 @@ const EnergyUnitField = memo(function EnergyUnitField() {
 });
 
 const ShownField = memo(function ShownField() {
-  const valueKey = useDraftSlice((d) => (d.display.shown.kind === 'survivors' ? 'survivors' : `m${d.display.shown.m}`));
+  const valueKey = useDraftSlice((d) => shownKey(d.display.shown));
   // Orbitals offered: those of the draft's highest orbital (none past the limit; m = 0 while it is being typed).
   const orbitals = useDraftSlice((d) => Math.max(0, Math.min(SETUP_LIMITS.maxOrbital, Number.isInteger(d.orbitals.mMax) ? d.orbitals.mMax : 0)) + 1);
   const help = useIssueText('display.shown');

@@ -7,6 +7,11 @@ export interface ViewWindow {
   field: [number, number];
 }
 
+/** A shown quantity as text: `survivors`, or `m3` for orbital m = 3 (the URL's `show=`; also to compare by value). */
+export function shownKey(shown: ShownQuantity): string {
+  return shown.kind === 'survivors' ? 'survivors' : `m${shown.m}`;
+}
+
 /** A probe point in canonical units. */
 export interface ProbePoint {
   alpha: number;
@@ -85,7 +90,7 @@ export function writeViewParams(params: URLSearchParams, state: UrlViewState): U
     next.delete('alpha');
     next.delete('field');
   }
-  if (state.shown) next.set('show', state.shown.kind === 'survivors' ? 'survivors' : `m${state.shown.m}`);
+  if (state.shown) next.set('show', shownKey(state.shown));
   else next.delete('show');
   if (state.probe) next.set('probe', `${fmt(state.probe.alpha)},${fmt(state.probe.tesla)}`);
   else next.delete('probe');

@@ -4,10 +4,11 @@ import type { ExplorerOverlayContext, ExplorerRegions } from '../explorer/Explor
 import { useClassNotices, type PinRegions } from './classNotices';
 import { regionUnderPin, type PinRegion } from './pinGeometry';
 import { PinsLayer, type LayerPin, type PinTool } from './PinsLayer';
+import { shownKey } from '../explorer/viewState';
 
 const NO_REGIONS: ReadonlyMap<string, PinRegion | null> = new Map<string, PinRegion | null>();
 
-const shownKeyOf = (r: ExplorerRegions) => (r.shown.kind === 'survivors' ? 'survivors' : `m${r.shown.m}`);
+const shownKeyOf = (r: ExplorerRegions) => shownKey(r.shown);
 
 /** Reads the classes under the pins from the finished computation and reports them to the owner when they change. */
 function PinsOverlay(props: Omit<Parameters<typeof PinsLayer>[0], 'regionsByPin'> & { onRegions: (r: PinRegions | null) => void }) {
